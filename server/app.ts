@@ -1,0 +1,133 @@
+import './auth/session-types';
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import cookieParser from 'cookie-parser';
+import express, { type Express, type RequestHandler } from 'express';
+import session from 'express-session';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import type { DataSource } from 'typeorm';
+import { createCsrfProtection } from './auth/csrf';
+import { OWASP_SCRYPT_COST, type ScryptCost } from './auth/password';
+import { createPassport } from './auth/passport-setup';
+import { DatabaseSessionStore } from './auth/session-store';
+import { errorHandler } from './middleware/error-handler';
+import { apiNotFound } from './middleware/not-found';
+import { authRoutes, DEFAULT_LOGIN_LIMITS, SESSION_COOKIE, type LoginLimits } from './routes/auth.routes';
+import { healthRoutes } from './routes/health.routes';
+import { userRoutes } from './routes/users.routes';
+import { UserService } from './services/user.service';
+
+/** Idle timeout: the cookie (and the row) expire 30 minutes after the last request. */
+export const SESSION_IDLE_MS = 30 * 60 * 1000;
+/** Absolute limit: a session ends 8 hours after sign-in whatever the activity. */
+export const SESSION_ABSOLUTE_MS = 8 * 60 * 60 * 1000;
+
+/** Everything {@link createApp} needs; no global state, so tests can build several apps. */
+export interface AppOptions {
+  dataSource: DataSource;
+  /** Secret for session ids and CSRF tokens (≥ 32 characters). */
+  secret: string;
+  /** Built Angular app (`dist/tidemark/browser`); null serves the API only. */
+  clientDir?: string | null;
+  /** Password hashing cost; tests lower it, production keeps OWASP's. */
+  scryptCost?: ScryptCost;
+  loginLimits?: LoginLimits;
+  /** pino level; 'silent' in tests. */
+  logLevel?: string;
+  /** Express `trust proxy` when served behind a TLS-terminating proxy. */
+  trustProxy?: boolean | number | string;
+}
+
+/** The parts of a built app that callers (main, tests, seeds) need besides the Express app. */
+export interface TidemarkApp {
+  app: Express;
+  sessions: DatabaseSessionStore;
+  users: UserService;
+}
+
+/** Ends sessions older than the absolute limit, even if they were kept alive. */
+const absoluteTimeout: RequestHandler = (req, _res, next) => {
+  const signedInAt = req.session?.signedInAt;
+  if (signedInAt && Date.now() - signedInAt > SESSION_ABSOLUTE_MS) {
+    req.session.regenerate((error) => next(error));
+    return;
+  }
+  next();
+};
+
+/** Builds the Express app (no `listen`), so tests run it in-process. */
+export function createApp(options: AppOptions): TidemarkApp {
+  if (options.secret.length < 32) throw new Error('The session secret must be at least 32 characters.');
+  const sessions = new DatabaseSessionStore(options.dataSource);
+  const users = new UserService(options.dataSource, sessions, options.scryptCost ?? OWASP_SCRYPT_COST);
+  const passport = createPassport(users);
+  const csrf = createCsrfProtection(options.secret);
+
+  const app = express();
+  app.disable('x-powered-by');
+  if (options.trustProxy !== undefined) app.set('trust proxy', options.trustProxy);
+
+  app.use(
+    pinoHttp({
+      level: options.logLevel ?? 'info',
+      // Method, path and status only: headers carry cookies and tokens.
+      serializers: {
+        req: (req: { method: string; url: string }) => ({ method: req.method, url: req.url }),
+        res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+      },
+      autoLogging: { ignore: (req) => req.url === '/api/health' },
+    }),
+  );
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: true,
+        directives: {
+          // Material and the CDK set inline styles at run time; scripts stay 'self' only.
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'font-src': ["'self'", 'data:'],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'upgrade-insecure-requests': null,
+        },
+      },
+    }),
+  );
+  app.use(express.json({ limit: '1mb' }));
+  app.use(cookieParser());
+  app.use(
+    session({
+      name: SESSION_COOKIE,
+      secret: options.secret,
+      store: sessions,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: SESSION_IDLE_MS, path: '/' },
+    }),
+  );
+  app.use(absoluteTimeout);
+  app.use(passport.session());
+
+  const api = express.Router();
+  api.use('/health', healthRoutes(options.dataSource));
+  api.use(csrf.middleware);
+  api.use('/auth', authRoutes(passport, csrf, options.loginLimits ?? DEFAULT_LOGIN_LIMITS));
+  api.use('/users', userRoutes(users));
+  api.use(apiNotFound);
+  app.use('/api', api);
+
+  const clientDir = options.clientDir;
+  if (clientDir && existsSync(path.join(clientDir, 'index.html'))) {
+    // The CSRF cookie is issued on the page load too, so the first POST already has it.
+    app.use(csrf.middleware);
+    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    app.get('/{*splat}', (_req, res) => {
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(path.join(clientDir, 'index.html'));
+    });
+  }
+
+  app.use(errorHandler);
+  return { app, sessions, users };
+}

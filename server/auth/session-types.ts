@@ -1,0 +1,26 @@
+import type { Role } from '@tidemark/shared';
+
+declare module 'express-session' {
+  interface SessionData {
+    /** Epoch ms of sign-in: the absolute 8-hour limit counts from here. */
+    signedInAt?: number;
+    /** Set when a CSRF token is issued, so an anonymous session is kept and the token stays bound. */
+    csrfIssuedAt?: number;
+    passport?: { user?: number };
+  }
+}
+
+declare global {
+  // eslint-disable-next-line @typescript-eslint/no-namespace
+  namespace Express {
+    /** The signed-in person as passport puts it on `req.user`. */
+    interface User {
+      id: number;
+      email: string;
+      displayName: string;
+      role: Role;
+    }
+  }
+}
+
+export {};

@@ -1,0 +1,13 @@
+/** `npm run seed:demo`: migrates and seeds the demo accounts into the configured data dir (idempotent). */
+import 'reflect-metadata';
+import { createApp } from '../app';
+import { loadConfig } from '../config';
+import { openDatabase } from '../data-source';
+import { seedDemo } from '../demo/seed-demo';
+
+const config = loadConfig();
+const dataSource = await openDatabase({ database: config.databaseFile });
+const { users } = createApp({ dataSource, secret: config.secret, clientDir: null, logLevel: 'silent' });
+await seedDemo(users);
+console.log(`Demo data ready in ${config.databaseFile}.`);
+await dataSource.destroy();

@@ -1,0 +1,46 @@
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+
+/** Runtime settings, read once from the environment. */
+export interface ServerConfig {
+  port: number;
+  dataDir: string;
+  databaseFile: string;
+  secret: string;
+  clientDir: string;
+  /** Seed demo accounts and the demo practice on an empty database. */
+  isDemo: boolean;
+  logLevel: string;
+  trustProxy?: string;
+}
+
+const projectRoot = path.resolve(path.dirname(new URL(import.meta.url).pathname), '..');
+
+/** Reads the secret from the environment or from `<dataDir>/secret.key`, creating it once. */
+function loadSecret(dataDir: string, fromEnv: string | undefined): string {
+  if (fromEnv) return fromEnv;
+  const file = path.join(dataDir, 'secret.key');
+  if (existsSync(file)) return readFileSync(file, 'utf8').trim();
+  const secret = randomBytes(48).toString('base64url');
+  writeFileSync(file, secret, { mode: 0o600 });
+  return secret;
+}
+
+/** Builds the configuration from `process.env` (PORT, TIDEMARK_DATA_DIR, TIDEMARK_SECRET, TIDEMARK_DEMO, LOG_LEVEL, TRUST_PROXY). */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
+  const dataDir = path.resolve(env.TIDEMARK_DATA_DIR ?? path.join(projectRoot, 'data'));
+  mkdirSync(dataDir, { recursive: true });
+  const port = Number(env.PORT ?? 3000);
+  if (!Number.isInteger(port) || port < 0 || port > 65535) throw new Error(`PORT must be a port number, got "${env.PORT}".`);
+  return {
+    port,
+    dataDir,
+    databaseFile: path.join(dataDir, 'tidemark.sqlite'),
+    secret: loadSecret(dataDir, env.TIDEMARK_SECRET),
+    clientDir: path.join(projectRoot, 'dist', 'tidemark', 'browser'),
+    isDemo: (env.TIDEMARK_DEMO ?? 'on') !== 'off',
+    logLevel: env.LOG_LEVEL ?? 'info',
+    trustProxy: env.TRUST_PROXY,
+  };
+}

@@ -1,0 +1,51 @@
+import 'reflect-metadata';
+import { mkdirSync } from 'node:fs';
+import path from 'node:path';
+import { DataSource } from 'typeorm';
+import { SessionRow } from './entities/session.entity';
+import { User } from './entities/user.entity';
+import { migrations } from './migrations';
+
+/** Every entity the application maps. */
+export const entities = [User, SessionRow];
+
+/** Options for {@link createDataSource}. */
+export interface DataSourceOptions {
+  /** SQLite file path, or ':memory:'. */
+  database: string;
+  /** Log SQL (debugging only). */
+  isLogging?: boolean;
+}
+
+/**
+ * The one place a TypeORM DataSource is built. Pragmas are set on every open:
+ * better-sqlite3 reports synchronous=NORMAL on later opens of a WAL file unless told.
+ */
+export function createDataSource(options: DataSourceOptions): DataSource {
+  if (options.database !== ':memory:') {
+    mkdirSync(path.dirname(options.database), { recursive: true });
+  }
+  return new DataSource({
+    type: 'better-sqlite3',
+    database: options.database,
+    entities,
+    migrations,
+    synchronize: false,
+    migrationsRun: false,
+    logging: options.isLogging ?? false,
+    prepareDatabase: (db) => {
+      db.pragma('journal_mode = WAL');
+      db.pragma('synchronous = FULL');
+      db.pragma('foreign_keys = ON');
+      db.pragma('busy_timeout = 5000');
+    },
+  });
+}
+
+/** Opens the data source and brings the schema up to date. */
+export async function openDatabase(options: DataSourceOptions): Promise<DataSource> {
+  const dataSource = createDataSource(options);
+  await dataSource.initialize();
+  await dataSource.runMigrations({ transaction: 'each' });
+  return dataSource;
+}

@@ -1,0 +1,83 @@
+import { Router, type NextFunction, type Request, type Response } from 'express';
+import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
+import { loginSchema, type SessionResponse } from '@tidemark/shared';
+import type { CsrfProtection } from '../auth/csrf';
+import { SIGN_IN_FAILED_MESSAGE, type PassportInstance } from '../auth/passport-setup';
+import { HttpError } from '../http-error';
+import { requireAuth } from '../middleware/require-role';
+import { validateBody } from '../middleware/validate';
+
+/** Limits on failed sign-ins. */
+export interface LoginLimits {
+  /** Failures allowed per account and address within the window. */
+  perAccount: number;
+  /** Failures allowed per address (any account) within the window. */
+  perAddress: number;
+  windowMs: number;
+}
+
+export const DEFAULT_LOGIN_LIMITS: LoginLimits = { perAccount: 5, perAddress: 50, windowMs: 15 * 60 * 1000 };
+
+function tooManyAttempts(windowMs: number) {
+  return (_req: Request, res: Response) => {
+    const minutes = Math.ceil(windowMs / 60_000);
+    res.status(429).json({
+      error: { code: 'rate_limited', message: `Too many failed sign-ins. Try again in up to ${minutes} minutes.` },
+    });
+  };
+}
+
+function emailKey(req: Request): string {
+  const email: unknown = req.body?.email;
+  return typeof email === 'string' ? email.trim().toLowerCase().slice(0, 254) : '';
+}
+
+/** Sign-in, sign-out and the current session. */
+export function authRoutes(passport: PassportInstance, csrf: CsrfProtection, limits: LoginLimits): Router {
+  const router = Router();
+  const common = { windowMs: limits.windowMs, standardHeaders: 'draft-7' as const, legacyHeaders: false, skipSuccessfulRequests: true };
+  const perAddress = rateLimit({ ...common, limit: limits.perAddress, keyGenerator: (req) => ipKeyGenerator(req.ip ?? ''), handler: tooManyAttempts(limits.windowMs) });
+  const perAccount = rateLimit({
+    ...common,
+    limit: limits.perAccount,
+    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${emailKey(req)}`,
+    handler: tooManyAttempts(limits.windowMs),
+  });
+
+  router.post('/login', perAddress, perAccount, validateBody(loginSchema), (req: Request, res: Response, next: NextFunction) => {
+    passport.authenticate('local', { session: false }, (error: unknown, user: Express.User | false) => {
+      if (error) return next(error);
+      if (!user) return next(new HttpError(401, 'unauthenticated', SIGN_IN_FAILED_MESSAGE));
+      // passport ≥ 0.6 regenerates the session here (fixation defence).
+      req.login(user, (loginError) => {
+        if (loginError) return next(loginError);
+        req.session.signedInAt = Date.now();
+        csrf.reissue(req, res);
+        const body: SessionResponse = { user };
+        res.json(body);
+      });
+    })(req, res, next);
+  });
+
+  router.get('/me', requireAuth, (req, res) => {
+    const user = req.user as Express.User;
+    const body: SessionResponse = { user: { id: user.id, email: user.email, displayName: user.displayName, role: user.role } };
+    res.json(body);
+  });
+
+  router.post('/logout', (req, res, next) => {
+    req.logout((logoutError) => {
+      if (logoutError) return next(logoutError);
+      req.session.destroy((destroyError) => {
+        if (destroyError) return next(destroyError);
+        res.clearCookie(SESSION_COOKIE);
+        res.status(204).end();
+      });
+    });
+  });
+
+  return router;
+}
+
+/** The session cookie's name (not express-session's default `connect.sid`). */
+export const SESSION_COOKIE = 'tm.sid';

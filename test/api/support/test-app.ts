@@ -1,0 +1,131 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import type { Express } from 'express';
+import request, { type Response } from 'supertest';
+import type TestAgent from 'supertest/lib/agent';
+import type { DataSource } from 'typeorm';
+import type { Role } from '@tidemark/shared';
+import { createApp, type TidemarkApp } from '../../../server/app';
+import { openDatabase } from '../../../server/data-source';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../../server/demo/demo-accounts';
+import type { LoginLimits } from '../../../server/routes/auth.routes';
+
+/** A cheap scrypt cost for tests only; production keeps OWASP's N = 2^17. */
+export const TEST_SCRYPT_COST = { N: 2 ** 10, r: 8, p: 1 };
+
+/** An in-process app on a throwaway database (migrated, not synchronised). */
+export interface TestApp extends TidemarkApp {
+  dataSource: DataSource;
+  dataDir: string;
+  close(): Promise<void>;
+}
+
+/** Builds the app on a fresh temporary SQLite database with the demo accounts. */
+export async function createTestApp(options: { loginLimits?: LoginLimits; trustProxy?: boolean } = {}): Promise<TestApp> {
+  const dataDir = mkdtempSync(path.join(tmpdir(), 'tidemark-test-'));
+  const dataSource = await openDatabase({ database: path.join(dataDir, 'tidemark.sqlite') });
+  const built = createApp({
+    dataSource,
+    secret: 'test-secret-that-is-long-enough-for-hmac-0123456789',
+    clientDir: null,
+    scryptCost: TEST_SCRYPT_COST,
+    loginLimits: options.loginLimits ?? { perAccount: 1000, perAddress: 1000, windowMs: 60_000 },
+    logLevel: 'silent',
+    trustProxy: options.trustProxy,
+  });
+  for (const account of DEMO_ACCOUNTS) await built.users.ensure({ ...account, password: DEMO_PASSWORD });
+  return {
+    ...built,
+    dataSource,
+    dataDir,
+    async close() {
+      await dataSource.destroy();
+      rmSync(dataDir, { recursive: true, force: true });
+    },
+  };
+}
+
+/** Reads one cookie's value from a response's Set-Cookie headers. */
+export function cookieFrom(response: Response, name: string): string | undefined {
+  const header = response.headers['set-cookie'] as unknown;
+  const cookies = Array.isArray(header) ? (header as string[]) : [];
+  const line = cookies.find((cookie) => cookie.startsWith(`${name}=`));
+  return line?.slice(name.length + 1).split(';')[0];
+}
+
+/** The full Set-Cookie line for one cookie (to check its flags). */
+export function setCookieLine(response: Response, name: string): string | undefined {
+  const header = response.headers['set-cookie'] as unknown;
+  const cookies = Array.isArray(header) ? (header as string[]) : [];
+  return cookies.find((cookie) => cookie.startsWith(`${name}=`));
+}
+
+/**
+ * A browser-like client: keeps cookies (supertest agent) and echoes the XSRF-TOKEN
+ * cookie in the X-XSRF-TOKEN header on writes, as Angular's HttpClient does.
+ */
+export class ApiClient {
+  readonly agent: TestAgent;
+  xsrf = '';
+  /** Raw value of the session cookie as last set by the server. */
+  sessionCookie = '';
+
+  constructor(app: Express) {
+    this.agent = request.agent(app);
+  }
+
+  private track(response: Response): Response {
+    this.xsrf = cookieFrom(response, 'XSRF-TOKEN') ?? this.xsrf;
+    this.sessionCookie = cookieFrom(response, 'tm.sid') ?? this.sessionCookie;
+    return response;
+  }
+
+  /** The session id inside the signed cookie (`s:<sid>.<signature>`). */
+  sessionId(): string {
+    const value = decodeURIComponent(this.sessionCookie);
+    if (!value.startsWith('s:')) throw new Error('No session cookie yet.');
+    return value.slice(2, value.lastIndexOf('.'));
+  }
+
+  async get(url: string): Promise<Response> {
+    return this.track(await this.agent.get(url));
+  }
+
+  async send(method: 'post' | 'put' | 'patch' | 'delete', url: string, body?: object): Promise<Response> {
+    if (!this.xsrf) await this.get('/api/auth/me');
+    const pending = this.agent[method](url).set('X-XSRF-TOKEN', this.xsrf);
+    return this.track(await (body === undefined ? pending : pending.send(body)));
+  }
+
+  post(url: string, body?: object): Promise<Response> {
+    return this.send('post', url, body);
+  }
+
+  patch(url: string, body?: object): Promise<Response> {
+    return this.send('patch', url, body);
+  }
+
+  delete(url: string): Promise<Response> {
+    return this.send('delete', url);
+  }
+
+  async signIn(email: string, password = DEMO_PASSWORD): Promise<Response> {
+    return this.post('/api/auth/login', { email, password });
+  }
+}
+
+/** The demo e-mail address for a role. */
+export function demoEmail(role: Role): string {
+  const account = DEMO_ACCOUNTS.find((candidate) => candidate.role === role);
+  if (!account) throw new Error(`No demo account for ${role}`);
+  return account.email;
+}
+
+/** A client already signed in as the demo account of `role`. */
+export async function signedInAs(app: Express, role: Role): Promise<ApiClient> {
+  const client = new ApiClient(app);
+  const response = await client.signIn(demoEmail(role));
+  if (response.status !== 200) throw new Error(`Sign-in as ${role} failed: ${response.status} ${JSON.stringify(response.body)}`);
+  return client;
+}
