@@ -16,7 +16,22 @@ import { apiNotFound } from './middleware/not-found';
 import { authRoutes, DEFAULT_LOGIN_LIMITS, SESSION_COOKIE, type LoginLimits } from './routes/auth.routes';
 import { healthRoutes } from './routes/health.routes';
 import { userRoutes } from './routes/users.routes';
+import { caseRoutes } from './routes/cases.routes';
+import { complicationRoutes, siteRoutes, visitRoutes } from './routes/clinical-edits.routes';
+import { patientRoutes } from './routes/patients.routes';
+import { photoRoutes } from './routes/photos.routes';
+import { historyRoutes, operatorRoutes, recallRoutes } from './routes/records-overview.routes';
+import { CaseService } from './services/case.service';
+import { ComplicationService } from './services/complication.service';
+import { HistoryService } from './services/history.service';
+import { OperatorDirectory } from './services/operator-directory';
+import { PatientService } from './services/patient.service';
+import { PhotoService } from './services/photo.service';
+import { RecallService } from './services/recall.service';
+import { SiteService } from './services/site.service';
 import { UserService } from './services/user.service';
+import { VisitService } from './services/visit.service';
+import type { PhotoStorage } from './storage/photo-storage';
 
 /** Idle timeout: the cookie (and the row) expire 30 minutes after the last request. */
 export const SESSION_IDLE_MS = 30 * 60 * 1000;
@@ -28,6 +43,8 @@ export interface AppOptions {
   dataSource: DataSource;
   /** Secret for session ids and CSRF tokens (≥ 32 characters). */
   secret: string;
+  /** Where photographs are kept (the data dir's uploads folder by default). */
+  photoStorage: PhotoStorage;
   /** Built Angular app (`dist/tidemark/browser`); null serves the API only. */
   clientDir?: string | null;
   /** Password hashing cost; tests lower it, production keeps OWASP's. */
@@ -44,6 +61,38 @@ export interface TidemarkApp {
   app: Express;
   sessions: DatabaseSessionStore;
   users: UserService;
+  services: ClinicalServices;
+}
+
+/** The clinical-record services, built once per app. */
+export interface ClinicalServices {
+  operators: OperatorDirectory;
+  patients: PatientService;
+  cases: CaseService;
+  sites: SiteService;
+  visits: VisitService;
+  complications: ComplicationService;
+  photos: PhotoService;
+  recalls: RecallService;
+  history: HistoryService;
+}
+
+/** Wires the services on one data source. */
+export function createServices(dataSource: DataSource, photoStorage: PhotoStorage): ClinicalServices {
+  const operators = new OperatorDirectory(dataSource);
+  const patients = new PatientService(dataSource);
+  const cases = new CaseService(dataSource, operators, patients);
+  return {
+    operators,
+    patients,
+    cases,
+    sites: new SiteService(dataSource, cases),
+    visits: new VisitService(dataSource, cases, operators),
+    complications: new ComplicationService(dataSource, cases),
+    photos: new PhotoService(dataSource, cases, operators, photoStorage),
+    recalls: new RecallService(dataSource, operators),
+    history: new HistoryService(dataSource, operators),
+  };
 }
 
 /** Ends sessions older than the absolute limit, even if they were kept alive. */
@@ -63,6 +112,7 @@ export function createApp(options: AppOptions): TidemarkApp {
   const users = new UserService(options.dataSource, sessions, options.scryptCost ?? OWASP_SCRYPT_COST);
   const passport = createPassport(users);
   const csrf = createCsrfProtection(options.secret);
+  const services = createServices(options.dataSource, options.photoStorage);
 
   const app = express();
   app.disable('x-powered-by');
@@ -114,6 +164,15 @@ export function createApp(options: AppOptions): TidemarkApp {
   api.use(csrf.middleware);
   api.use('/auth', authRoutes(passport, csrf, options.loginLimits ?? DEFAULT_LOGIN_LIMITS));
   api.use('/users', userRoutes(users));
+  api.use('/operators', operatorRoutes(services.operators));
+  api.use('/patients', patientRoutes(services.patients));
+  api.use('/cases', caseRoutes(services));
+  api.use('/sites', siteRoutes(services.sites));
+  api.use('/visits', visitRoutes(services.visits));
+  api.use('/complications', complicationRoutes(services.complications));
+  api.use('/photos', photoRoutes(services.photos));
+  api.use('/recalls', recallRoutes(services.recalls));
+  api.use('/history', historyRoutes(services.history));
   api.use(apiNotFound);
   app.use('/api', api);
 
@@ -129,5 +188,5 @@ export function createApp(options: AppOptions): TidemarkApp {
   }
 
   app.use(errorHandler);
-  return { app, sessions, users };
+  return { app, sessions, users, services };
 }

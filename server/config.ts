@@ -7,6 +7,7 @@ export interface ServerConfig {
   port: number;
   dataDir: string;
   databaseFile: string;
+  uploadsDir: string;
   secret: string;
   clientDir: string;
   /** Seed demo accounts and the demo practice on an empty database. */
@@ -37,6 +38,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     port,
     dataDir,
     databaseFile: path.join(dataDir, 'tidemark.sqlite'),
+    uploadsDir: path.join(dataDir, 'uploads'),
     secret: loadSecret(dataDir, env.TIDEMARK_SECRET),
     clientDir: path.join(projectRoot, 'dist', 'tidemark', 'browser'),
     isDemo: (env.TIDEMARK_DEMO ?? 'on') !== 'off',

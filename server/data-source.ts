@@ -2,12 +2,20 @@ import 'reflect-metadata';
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { DataSource } from 'typeorm';
+import { ChangeRecord } from './entities/change-record.entity';
+import { Complication } from './entities/complication.entity';
+import { Patient } from './entities/patient.entity';
+import { Photo } from './entities/photo.entity';
 import { SessionRow } from './entities/session.entity';
+import { SiteMeasurement } from './entities/site-measurement.entity';
+import { Site } from './entities/site.entity';
+import { SurgicalCase } from './entities/surgical-case.entity';
 import { User } from './entities/user.entity';
+import { Visit } from './entities/visit.entity';
 import { migrations } from './migrations';
 
 /** Every entity the application maps. */
-export const entities = [User, SessionRow];
+export const entities = [User, SessionRow, Patient, SurgicalCase, Site, Visit, SiteMeasurement, Complication, Photo, ChangeRecord];
 
 /** Options for {@link createDataSource}. */
 export interface DataSourceOptions {

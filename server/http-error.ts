@@ -7,6 +7,8 @@ export class HttpError extends Error {
     readonly code: ApiErrorCode,
     message: string,
     readonly fields?: Record<string, string>,
+    /** Extra machine-readable facts, e.g. `{ currentVersion }` on a 409. */
+    readonly details?: Record<string, unknown>,
   ) {
     super(message);
     this.name = 'HttpError';

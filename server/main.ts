@@ -1,5 +1,6 @@
 import 'reflect-metadata';
 import type { Server } from 'node:http';
+import { LocalPhotoStorage } from './storage/photo-storage';
 import { createApp } from './app';
 import { loadConfig } from './config';
 import { openDatabase } from './data-source';
@@ -12,6 +13,7 @@ async function main(): Promise<void> {
   const { app, sessions, users } = createApp({
     dataSource,
     secret: config.secret,
+    photoStorage: new LocalPhotoStorage(config.uploadsDir),
     clientDir: config.clientDir,
     logLevel: config.logLevel,
     trustProxy: config.trustProxy,

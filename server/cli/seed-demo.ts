@@ -1,5 +1,6 @@
 /** `npm run seed:demo`: migrates and seeds the demo accounts into the configured data dir (idempotent). */
 import 'reflect-metadata';
+import { LocalPhotoStorage } from '../storage/photo-storage';
 import { createApp } from '../app';
 import { loadConfig } from '../config';
 import { openDatabase } from '../data-source';
@@ -7,7 +8,7 @@ import { seedDemo } from '../demo/seed-demo';
 
 const config = loadConfig();
 const dataSource = await openDatabase({ database: config.databaseFile });
-const { users } = createApp({ dataSource, secret: config.secret, clientDir: null, logLevel: 'silent' });
+const { users } = createApp({ dataSource, secret: config.secret, photoStorage: new LocalPhotoStorage(config.uploadsDir), clientDir: null, logLevel: 'silent' });
 await seedDemo(users);
 console.log(`Demo data ready in ${config.databaseFile}.`);
 await dataSource.destroy();

@@ -1,5 +1,6 @@
 import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn } from 'typeorm';
 import type { Role } from '@tidemark/shared';
+import { TIMESTAMP_TYPE } from './column-types';
 
 /** A person who signs in. E-mail is stored lower-cased, so uniqueness is case-insensitive. */
 @Entity('user')
@@ -24,9 +25,9 @@ export class User {
   @Column('varchar', { name: 'password_hash', length: 255 })
   passwordHash!: string;
 
-  @CreateDateColumn({ name: 'created_at', type: 'datetime' })
+  @CreateDateColumn({ name: 'created_at', type: TIMESTAMP_TYPE })
   createdAt!: Date;
 
-  @Column('datetime', { name: 'last_sign_in_at', nullable: true })
+  @Column({ type: TIMESTAMP_TYPE, name: 'last_sign_in_at', nullable: true })
   lastSignInAt!: Date | null;
 }

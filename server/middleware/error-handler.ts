@@ -44,6 +44,7 @@ export const errorHandler: ErrorRequestHandler = (error: unknown, req, res, _nex
       code: known?.code ?? 'internal',
       message: known?.message ?? 'Something went wrong on our side. The error has been logged.',
       ...(known?.fields ? { fields: known.fields } : {}),
+      ...(known?.details ? { details: known.details } : {}),
     },
   };
   if (res.headersSent) return;

@@ -1,5 +1,6 @@
 import type { MigrationInterface, QueryRunner } from 'typeorm';
 import { Table, TableIndex } from 'typeorm';
+import { TIMESTAMP_TYPE } from '../entities/column-types';
 
 /** Users and sessions. Written with TypeORM's schema builder so it runs on SQLite and PostgreSQL. */
 export class PlatformFoundation1764640000000 implements MigrationInterface {
@@ -16,8 +17,8 @@ export class PlatformFoundation1764640000000 implements MigrationInterface {
           { name: 'role', type: 'varchar', length: '20' },
           { name: 'active', type: 'boolean', default: true },
           { name: 'password_hash', type: 'varchar', length: '255' },
-          { name: 'created_at', type: 'datetime', default: 'CURRENT_TIMESTAMP' },
-          { name: 'last_sign_in_at', type: 'datetime', isNullable: true },
+          { name: 'created_at', type: TIMESTAMP_TYPE, default: 'CURRENT_TIMESTAMP' },
+          { name: 'last_sign_in_at', type: TIMESTAMP_TYPE, isNullable: true },
         ],
         checks: [{ name: 'CHK_user_role', expression: `role IN ('admin','audit_lead','clinician','partner','governance')` }],
       }),

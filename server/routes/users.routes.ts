@@ -1,11 +1,9 @@
 import { Router } from 'express';
-import { z } from 'zod';
 import { userCreateSchema, userUpdateSchema } from '@tidemark/shared';
 import { requireRole } from '../middleware/require-role';
-import { parseOrThrow, validateBody } from '../middleware/validate';
+import { validateBody } from '../middleware/validate';
+import { routeId } from './route-params';
 import type { UserService } from '../services/user.service';
-
-const idParams = z.object({ id: z.coerce.number().int().positive('Not a valid id.') });
 
 /** `/api/users`: team administration, admin only. */
 export function userRoutes(users: UserService): Router {
@@ -21,8 +19,7 @@ export function userRoutes(users: UserService): Router {
   });
 
   router.patch('/:id', validateBody(userUpdateSchema), async (req, res) => {
-    const { id } = parseOrThrow(idParams, req.params);
-    res.json(await users.update(id, req.body, (req.user as Express.User).id));
+    res.json(await users.update(routeId(req.params), req.body, (req.user as Express.User).id));
   });
 
   return router;

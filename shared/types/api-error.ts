@@ -19,5 +19,7 @@ export interface ApiErrorBody {
     message: string;
     /** Field path (dot-separated) → message, for validation errors. */
     fields?: Record<string, string>;
+    /** Extra facts, e.g. `{ currentVersion }` with a 409. */
+    details?: Record<string, unknown>;
   };
 }

@@ -8,6 +8,7 @@ import type { DataSource } from 'typeorm';
 import type { Role } from '@tidemark/shared';
 import { createApp, type TidemarkApp } from '../../../server/app';
 import { openDatabase } from '../../../server/data-source';
+import { LocalPhotoStorage } from '../../../server/storage/photo-storage';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../../server/demo/demo-accounts';
 import type { LoginLimits } from '../../../server/routes/auth.routes';
 
@@ -29,6 +30,7 @@ export async function createTestApp(options: { loginLimits?: LoginLimits; trustP
     dataSource,
     secret: 'test-secret-that-is-long-enough-for-hmac-0123456789',
     clientDir: null,
+    photoStorage: new LocalPhotoStorage(path.join(dataDir, 'uploads')),
     scryptCost: TEST_SCRYPT_COST,
     loginLimits: options.loginLimits ?? { perAccount: 1000, perAddress: 1000, windowMs: 60_000 },
     logLevel: 'silent',
