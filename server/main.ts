@@ -10,7 +10,7 @@ import { seedDemo } from './demo/seed-demo';
 async function main(): Promise<void> {
   const config = loadConfig();
   const dataSource = await openDatabase({ database: config.databaseFile });
-  const { app, sessions, users } = createApp({
+  const { app, sessions, users, services } = createApp({
     dataSource,
     secret: config.secret,
     photoStorage: new LocalPhotoStorage(config.uploadsDir),
@@ -19,8 +19,9 @@ async function main(): Promise<void> {
     trustProxy: config.trustProxy,
   });
   if (config.isDemo && (await users.count()) === 0) {
-    console.log('Empty database: seeding the demo accounts (demo mode; set TIDEMARK_DEMO=off to skip).');
-    await seedDemo(users);
+    console.log('Empty database: seeding the demo practice (demo mode; set TIDEMARK_DEMO=off to skip).');
+    const report = await seedDemo(dataSource, users, services);
+    console.log(`Demo practice: ${report.accounts} accounts, ${report.patients} patients, ${report.cases} cases, ${report.visits} recall visits, ${report.photos} photographs.`);
   }
   const stopPruning = sessions.startPruning();
   const server: Server = app.listen(config.port, () => {

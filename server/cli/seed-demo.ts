@@ -8,7 +8,7 @@ import { seedDemo } from '../demo/seed-demo';
 
 const config = loadConfig();
 const dataSource = await openDatabase({ database: config.databaseFile });
-const { users } = createApp({ dataSource, secret: config.secret, photoStorage: new LocalPhotoStorage(config.uploadsDir), clientDir: null, logLevel: 'silent' });
-await seedDemo(users);
-console.log(`Demo data ready in ${config.databaseFile}.`);
+const { users, services } = createApp({ dataSource, secret: config.secret, photoStorage: new LocalPhotoStorage(config.uploadsDir), clientDir: null, logLevel: 'silent' });
+const report = await seedDemo(dataSource, users, services);
+console.log(`Demo data ready in ${config.databaseFile}:`, report);
 await dataSource.destroy();

@@ -103,12 +103,24 @@ export class UserService {
     return mapUser(saved);
   }
 
-  /** Creates a user unless the e-mail exists (used by the demo seed). */
+  /** Creates a user unless the e-mail exists (tests and the demo seed). */
   async ensure(input: UserCreate): Promise<void> {
-    if (await this.users.existsBy({ email: input.email })) return;
-    await this.users.save(
-      this.users.create({ ...input, active: true, passwordHash: await hashPassword(input.password, this.scryptCost), lastSignInAt: null }),
-    );
+    await this.ensureAll([input], input.password);
+  }
+
+  /**
+   * Creates the missing accounts, all with one password hashed once (demo seeding only:
+   * one hash keeps the first start quick at OWASP cost). Returns how many were created.
+   */
+  async ensureAll(accounts: ReadonlyArray<Omit<UserCreate, 'password'>>, password: string): Promise<number> {
+    const missing: Array<Omit<UserCreate, 'password'>> = [];
+    for (const account of accounts) {
+      if (!(await this.users.existsBy({ email: account.email }))) missing.push(account);
+    }
+    if (missing.length === 0) return 0;
+    const passwordHash = await hashPassword(password, this.scryptCost);
+    await this.users.save(missing.map((account) => this.users.create({ ...account, active: true, passwordHash, lastSignInAt: null })));
+    return missing.length;
   }
 
   async count(): Promise<number> {
