@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { ROLES } from '../types/role';
 
 /** Sign-in request body. Length caps stop oversized input before any hashing. */

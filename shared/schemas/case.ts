@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { CASE_STATUSES, INDICATIONS, INSTRUMENTS, PROCEDURES, REFERENCE_POINTS, SITE_LOCATIONS } from '../types/clinical-terms';
 import { changeReason, fdiTooth, isoDate, millimetres, note, papillaScore, version } from './clinical-fields';
 import { patientCreateSchema } from './patient';

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { isValidFdiTooth } from '../../analytics/is-valid-fdi-tooth';
 
 /** Largest plausible distance in mm (DESIGN.md §3). */

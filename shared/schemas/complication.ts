@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { CLAVIEN_DINDO_GRADES, COMPLICATION_TYPES } from '../types/clinical-terms';
 import { changeReason, note, pastOrTodayDate, version } from './clinical-fields';
 

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { DIABETES_STATUSES, PHENOTYPE_METHODS, PHENOTYPES, SEXES, SMOKING_STATUSES } from '../types/clinical-terms';
 import { changeReason, version } from './clinical-fields';
 

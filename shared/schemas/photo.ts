@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { PHOTO_KINDS } from '../types/clinical-terms';
 import { isoMonth } from './clinical-fields';
 

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { ROLES } from '../types/role';
 
 /** Minimum password length (OWASP ASVS 5.0 §6.2.1 asks for at least 8; we ask 12). */

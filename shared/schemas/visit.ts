@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { changeReason, millimetres, note, papillaScore, pastOrTodayDate, version, zeroToTen } from './clinical-fields';
 
 /** One site's readings at a recall. */

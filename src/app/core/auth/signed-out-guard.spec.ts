@@ -1,0 +1,35 @@
+import { Component } from '@angular/core';
+import { TestBed } from '@angular/core/testing';
+import { Router, provideRouter } from '@angular/router';
+import { RouterTestingHarness } from '@angular/router/testing';
+import type { SessionUser } from '@tidemark/shared';
+import { signedOutGuard } from './signed-out-guard';
+import { personWithRole, provideStubAuthSession } from './testing/stub-auth-session';
+
+@Component({ template: '' })
+class BlankPage {}
+
+async function landingUrl(user: SessionUser | null): Promise<string> {
+  TestBed.configureTestingModule({
+    providers: [
+      provideStubAuthSession(user),
+      provideRouter([
+        { path: 'sign-in', component: BlankPage, canActivate: [signedOutGuard] },
+        { path: 'audits', component: BlankPage },
+      ]),
+    ],
+  });
+  const harness = await RouterTestingHarness.create();
+  await harness.navigateByUrl('/sign-in');
+  return TestBed.inject(Router).url;
+}
+
+describe('signedOutGuard', () => {
+  it('shows the sign-in page to a signed-out visitor', async () => {
+    expect(await landingUrl(null)).toBe('/sign-in');
+  });
+
+  it('sends someone already signed in to their home page', async () => {
+    expect(await landingUrl(personWithRole('governance'))).toBe('/audits');
+  });
+});
