@@ -60,7 +60,12 @@ export function caseRoutes(services: CaseRouteServices): Router {
   router.post('/:id/complications', validateBody(complicationCreateSchema), async (req, res) => {
     res.status(201).json(await services.complications.create(req.user as Express.User, routeId(req.params), req.body));
   });
-  router.post('/:id/photos', singlePhoto(), async (req, res) => {
+  // Ownership is checked before multer reads up to 15 MB into memory.
+  const mayUpload: RequestHandler = async (req, _res, next) => {
+    await services.cases.findCase(services.cases.manager, req.user as Express.User, routeId(req.params), 'write');
+    next();
+  };
+  router.post('/:id/photos', mayUpload, singlePhoto(), async (req, res) => {
     const id = routeId(req.params);
     const fields = parseOrThrow(photoUploadSchema, req.body ?? {});
     res.status(201).json(await services.photos.upload(req.user as Express.User, id, req.file?.buffer, fields));

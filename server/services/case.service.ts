@@ -59,6 +59,11 @@ export class CaseService {
     private readonly patients: PatientService,
   ) {}
 
+  /** The default entity manager, for checks outside a transaction. */
+  get manager(): EntityManager {
+    return this.dataSource.manager;
+  }
+
   /** Loads a case or answers 404; checks read (or write) access. */
   async findCase(manager: EntityManager, user: Express.User, id: number, access: 'read' | 'write'): Promise<SurgicalCase> {
     const found = await manager.getRepository(SurgicalCase).findOneBy({ id });
@@ -223,7 +228,20 @@ export class CaseService {
       }
       if (change.status === 'withdrawn' && current.status !== 'withdrawn') change.withdrawnReason = change.withdrawnReason ?? '';
       else delete change.withdrawnReason;
-      this.assertDateOrder(change.surgeryDate ?? current.surgeryDate, change.finalImpressionDate ?? current.finalImpressionDate, change.finalRestorationDate ?? current.finalRestorationDate);
+      const nextStatus = change.status ?? current.status;
+      const nextSurgeryDate = change.surgeryDate ?? current.surgeryDate;
+      // The same rule as on registration: once operated, the surgery cannot lie in the future.
+      if (nextStatus !== 'planned' && nextStatus !== 'withdrawn' && nextSurgeryDate > todayIso()) {
+        throw HttpError.badRequest('An operated case cannot have a future surgery date.', { surgeryDate: 'Cannot be in the future for an operated case.' });
+      }
+      const keep = <T>(next: T | undefined, previous: T): T => (next === undefined ? previous : next);
+      this.assertDateOrder(nextSurgeryDate, keep(change.finalImpressionDate, current.finalImpressionDate), keep(change.finalRestorationDate, current.finalRestorationDate));
+      if (change.surgeryDate !== undefined) {
+        const firstVisit = await manager.getRepository(Visit).findOne({ where: { caseId: id }, order: { visitDate: 'ASC' } });
+        if (firstVisit && change.surgeryDate > firstVisit.visitDate) {
+          throw HttpError.badRequest('The surgery cannot come after a recorded recall.', { surgeryDate: `Must be on or before the first recall (${firstVisit.visitDate}).` });
+        }
+      }
       const changes = diffFields(current, change);
       await updateWithVersion(manager, SurgicalCase, id, version, Object.fromEntries(changes.map((entry) => [entry.field, entry.newValue])));
       await appendChanges(manager, { entity: 'case', entityId: id, caseId: id, userId: user.id, reason }, changes);

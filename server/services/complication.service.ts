@@ -7,6 +7,7 @@ import { Visit } from '../entities/visit.entity';
 import { HttpError } from '../http-error';
 import { appendChanges, diffFields } from './change-log';
 import type { CaseService } from './case.service';
+import { clinicalAccess } from './clinical-access';
 import { mapComplication } from './clinical-mappers';
 import { updateWithVersion } from './versioned-update';
 
@@ -37,7 +38,11 @@ export class ComplicationService {
   async update(user: Express.User, id: number, body: ComplicationUpdate): Promise<ComplicationView> {
     return this.dataSource.transaction(async (manager) => {
       const current = await manager.getRepository(Complication).findOneBy({ id });
-      if (!current) throw HttpError.notFound('The complication');
+      if (!current) {
+        // As findCase: roles without patient-level access learn nothing about which records exist.
+        clinicalAccess.assertPatientLevel(user);
+        throw HttpError.notFound('The complication');
+      }
       await this.cases.findCase(manager, user, current.caseId, 'write');
       const { version, reason, ...change } = body;
       const onset = change.onsetDate ?? current.onsetDate;

@@ -19,7 +19,11 @@ export class HistoryService {
     if (!HISTORY_READERS.has(user.role)) throw HttpError.forbidden('Your role does not see the change history.');
     const builder = this.dataSource.getRepository(ChangeRecord).createQueryBuilder('r');
     if (user.role === 'clinician') {
-      builder.andWhere('r.case_id IN (SELECT c.id FROM surgical_case c WHERE c.operator_id = :self)', { self: user.id });
+      // Own cases, and edits to the patients of own cases (patient rows carry no case id).
+      builder.andWhere(
+        "(r.case_id IN (SELECT c.id FROM surgical_case c WHERE c.operator_id = :self) OR (r.entity = 'patient' AND r.entity_id IN (SELECT c.patient_id FROM surgical_case c WHERE c.operator_id = :self)))",
+        { self: user.id },
+      );
     }
     if (query.caseId) builder.andWhere('r.case_id = :caseId', { caseId: query.caseId });
     const [records, total] = await builder

@@ -10,6 +10,7 @@ import { Visit } from '../entities/visit.entity';
 import { HttpError } from '../http-error';
 import type { PhotoStorage } from '../storage/photo-storage';
 import type { CaseService } from './case.service';
+import { clinicalAccess } from './clinical-access';
 import { mapPhoto } from './clinical-mappers';
 import type { OperatorDirectory } from './operator-directory';
 
@@ -95,7 +96,11 @@ export class PhotoService {
   /** The bytes of a photograph (or its thumbnail) for someone allowed to see the case. */
   async read(user: Express.User, id: number, variant: 'full' | 'thumbnail'): Promise<{ bytes: Buffer; contentType: string }> {
     const photo = await this.dataSource.getRepository(Photo).findOneBy({ id });
-    if (!photo) throw HttpError.notFound('The photograph');
+    if (!photo) {
+      // As findCase: roles without patient-level access learn nothing about which records exist.
+      clinicalAccess.assertPatientLevel(user);
+      throw HttpError.notFound('The photograph');
+    }
     await this.cases.findCase(this.dataSource.manager, user, photo.caseId, 'read');
     if (variant === 'thumbnail') return { bytes: await this.storage.get(photo.thumbnailKey), contentType: 'image/webp' };
     return { bytes: await this.storage.get(photo.storageKey), contentType: photo.contentType };

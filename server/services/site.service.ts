@@ -5,6 +5,7 @@ import { siteCreateSchema, siteUpdateSchema } from '@tidemark/shared';
 import { Site } from '../entities/site.entity';
 import { HttpError } from '../http-error';
 import { appendChanges, diffFields } from './change-log';
+import { clinicalAccess } from './clinical-access';
 import { mapSite } from './clinical-mappers';
 import type { CaseService } from './case.service';
 import { updateWithVersion } from './versioned-update';
@@ -23,7 +24,11 @@ export class SiteService {
     return this.dataSource.transaction(async (manager) => {
       await this.cases.findCase(manager, user, caseId, 'write');
       if (await manager.getRepository(Site).existsBy({ caseId, tooth: body.tooth, location: body.location })) {
-        throw HttpError.conflict('This case already has that tooth and location.');
+        // Bad input, not an edit race: a 400 naming the fields, as for duplicates within a new case.
+        throw HttpError.badRequest('This case already has that tooth and location.', {
+          tooth: `Tooth ${body.tooth} already has a ${body.location} site in this case.`,
+          location: `Tooth ${body.tooth} already has a ${body.location} site in this case.`,
+        });
       }
       const saved = await manager.getRepository(Site).save(manager.getRepository(Site).create({ ...body, caseId, version: 1 }));
       return mapSite(saved);
@@ -37,7 +42,11 @@ export class SiteService {
   async update(user: Express.User, siteId: number, body: SiteUpdate): Promise<SiteView> {
     return this.dataSource.transaction(async (manager) => {
       const current = await manager.getRepository(Site).findOneBy({ id: siteId });
-      if (!current) throw HttpError.notFound('The site');
+      if (!current) {
+        // As findCase: roles without patient-level access learn nothing about which records exist.
+        clinicalAccess.assertPatientLevel(user);
+        throw HttpError.notFound('The site');
+      }
       await this.cases.findCase(manager, user, current.caseId, 'write');
       const { version, reason, ...change } = body;
       const changes = diffFields(current, change);

@@ -11,12 +11,16 @@ import { Visit } from '../entities/visit.entity';
 import { HttpError } from '../http-error';
 import { appendChanges, diffFields, type FieldChange } from './change-log';
 import type { CaseService } from './case.service';
+import { clinicalAccess } from './clinical-access';
 import type { OperatorDirectory } from './operator-directory';
 import { updateWithVersion } from './versioned-update';
 
 type VisitCreate = z.output<typeof visitCreateSchema>;
 type VisitUpdate = z.output<typeof visitUpdateSchema>;
 type MeasurementInput = VisitCreate['measurements'][number];
+type MeasurementPatch = NonNullable<VisitUpdate['measurements']>[number];
+/** Anything naming a site and perhaps a new REF→GM reading. */
+type SiteReading = { siteId: number; refGm?: number };
 
 /** Recall visits and their per-site measurements. */
 export class VisitService {
@@ -61,6 +65,9 @@ export class VisitService {
       if (found.status === 'operated') {
         // The first recall moves the case into its recall phase.
         await manager.getRepository(SurgicalCaseEntity).update({ id: caseId }, { status: 'in-recall', version: () => 'version + 1' });
+        await appendChanges(manager, { entity: 'case', entityId: caseId, caseId, userId: user.id, reason: 'First recall recorded.' }, [
+          { field: 'status', oldValue: 'operated', newValue: 'in-recall' },
+        ]);
       }
     });
     return this.cases.get(user, caseId);
@@ -71,20 +78,28 @@ export class VisitService {
     let caseId = 0;
     await this.dataSource.transaction(async (manager) => {
       const visit = await manager.getRepository(Visit).findOneBy({ id: visitId });
-      if (!visit) throw HttpError.notFound('The visit');
+      if (!visit) {
+        // As findCase: roles without patient-level access learn nothing about which records exist.
+        clinicalAccess.assertPatientLevel(user);
+        throw HttpError.notFound('The visit');
+      }
       const found = await this.cases.findCase(manager, user, visit.caseId, 'write');
       caseId = found.id;
       const { version, reason, measurements, confirmLargeChange, ...change } = body;
       if (change.visitDate) this.assertAfterSurgery(found, change.visitDate);
       const changes = diffFields(visit, change);
-      await updateWithVersion(manager, Visit, visitId, version, Object.fromEntries(changes.map((entry) => [entry.field, entry.newValue])));
       const context = { entity: 'visit', entityId: visitId, caseId: found.id, userId: user.id, reason };
-      await appendChanges(manager, context, changes);
+      let changedMeasurements = 0;
       if (measurements) {
         const sites = await this.sitesOf(manager, found.id, measurements);
         await this.assertPlausibleChanges(manager, found.id, change.visitDate ?? visit.visitDate, sites, measurements, confirmLargeChange, visitId);
-        await this.applyMeasurements(manager, visitId, measurements, { ...context, entity: 'site_measurement' });
+        changedMeasurements = await this.applyMeasurements(manager, visitId, measurements, { ...context, entity: 'site_measurement' });
       }
+      // The visit's version guards its measurements too: two people correcting one visit cannot both win.
+      await updateWithVersion(manager, Visit, visitId, version, Object.fromEntries(changes.map((entry) => [entry.field, entry.newValue])), {
+        isTouched: changedMeasurements > 0,
+      });
+      await appendChanges(manager, context, changes);
     });
     return this.cases.get(user, caseId);
   }
@@ -92,16 +107,30 @@ export class VisitService {
   private async applyMeasurements(
     manager: EntityManager,
     visitId: number,
-    measurements: MeasurementInput[],
+    measurements: MeasurementPatch[],
     context: { entity: string; caseId: number; userId: number; reason: string },
-  ): Promise<void> {
+  ): Promise<number> {
+    let changed = 0;
     const existing = await manager.getRepository(SiteMeasurement).findBy({ visitId });
-    for (const measurement of measurements) {
+    for (const [index, measurement] of measurements.entries()) {
       const current = existing.find((row) => row.siteId === measurement.siteId);
       if (!current) {
-        const inserted = await manager.getRepository(SiteMeasurement).insert({ ...measurement, visitId });
+        // A site not measured at this visit yet: the correction adds it, so REF→GM is needed.
+        if (measurement.refGm === undefined) {
+          throw HttpError.badRequest('Enter REF→GM for a site added to the visit.', { [`measurements.${index}.refGm`]: 'Enter REF→GM.' });
+        }
+        const inserted = await manager.getRepository(SiteMeasurement).insert({
+          visitId,
+          siteId: measurement.siteId,
+          refGm: measurement.refGm,
+          probingDepth: measurement.probingDepth ?? null,
+          bleedingOnProbing: measurement.bleedingOnProbing ?? null,
+          ktWidth: measurement.ktWidth ?? null,
+          papillaScore: measurement.papillaScore ?? null,
+        });
         const id = Number(inserted.identifiers[0]?.id);
         await appendChanges(manager, { ...context, entityId: id }, [{ field: `site ${measurement.siteId}: added`, oldValue: null, newValue: measurement.refGm }]);
+        changed++;
         continue;
       }
       const { siteId: _siteId, ...values } = measurement;
@@ -109,7 +138,9 @@ export class VisitService {
       if (changes.length === 0) continue;
       await manager.getRepository(SiteMeasurement).update({ id: current.id }, Object.fromEntries(changes.map((entry) => [entry.field, entry.newValue])));
       await appendChanges(manager, { ...context, entityId: current.id }, changes);
+      changed++;
     }
+    return changed;
   }
 
   private assertAfterSurgery(found: SurgicalCase, visitDate: string): void {
@@ -119,7 +150,7 @@ export class VisitService {
   }
 
   /** The case's sites named by the measurements; 400 for a site of another case. */
-  private async sitesOf(manager: EntityManager, caseId: number, measurements: MeasurementInput[]): Promise<Map<number, Site>> {
+  private async sitesOf(manager: EntityManager, caseId: number, measurements: SiteReading[]): Promise<Map<number, Site>> {
     const ids = measurements.map((measurement) => measurement.siteId);
     const sites = await manager.getRepository(Site).findBy({ id: In(ids), caseId });
     const byId = new Map(sites.map((site) => [site.id, site]));
@@ -140,7 +171,7 @@ export class VisitService {
     caseId: number,
     visitDate: string,
     sites: Map<number, Site>,
-    measurements: MeasurementInput[],
+    measurements: SiteReading[],
     isConfirmed: boolean,
     excludeVisitId?: number,
   ): Promise<void> {
@@ -150,10 +181,12 @@ export class VisitService {
     const previous = earlierIds.length ? await manager.getRepository(SiteMeasurement).findBy({ visitId: In(earlierIds) }) : [];
     const fields: Record<string, string> = {};
     measurements.forEach((measurement, index) => {
+      if (measurement.refGm === undefined) return;
+      const refGm = measurement.refGm;
       const latest = earlierIds.map((id) => previous.find((row) => row.visitId === id && row.siteId === measurement.siteId)).find(Boolean);
       const reference = latest?.refGm ?? sites.get(measurement.siteId)?.postOpRefGm ?? null;
-      if (reference !== null && Math.abs(measurement.refGm - reference) > LARGE_CHANGE_MM) {
-        fields[`measurements.${index}.refGm`] = `Changed ${Math.abs(measurement.refGm - reference)} mm since ${reference} mm — check the reference point, then confirm.`;
+      if (reference !== null && Math.abs(refGm - reference) > LARGE_CHANGE_MM) {
+        fields[`measurements.${index}.refGm`] = `Changed ${Math.abs(refGm - reference)} mm since ${reference} mm — check the reference point, then confirm.`;
       }
     });
     if (Object.keys(fields).length) {

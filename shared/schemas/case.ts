@@ -1,6 +1,6 @@
 import * as z from 'zod';
 import { CASE_STATUSES, INDICATIONS, INSTRUMENTS, PROCEDURES, REFERENCE_POINTS, SITE_LOCATIONS } from '../types/clinical-terms';
-import { changeReason, fdiTooth, isoDate, millimetres, note, papillaScore, version } from './clinical-fields';
+import { changeReason, fdiTooth, fdiToothParam, isoDate, millimetres, note, papillaScore, version } from './clinical-fields';
 import { patientCreateSchema } from './patient';
 
 const percentage = z.number().min(0, 'Use 0–100 %.').max(100, 'Use 0–100 %.');
@@ -122,7 +122,7 @@ export const caseListQuerySchema = z.object({
   phenotype: z.enum(['thin', 'thick']).optional(),
   from: isoDate.optional(),
   to: isoDate.optional(),
-  tooth: fdiTooth.optional(),
+  tooth: fdiToothParam.optional(),
   patientCode: z.string().trim().max(20).optional(),
 });
 export type CaseListQuery = z.output<typeof caseListQuerySchema>;

@@ -33,10 +33,16 @@ export const pastOrTodayDate = isoDate.refine((value) => value <= todayIso(), 'C
 /** A month `YYYY-MM`. */
 export const isoMonth = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, 'Use the form YYYY-MM.');
 
-/** FDI two-digit tooth number, ISO 3950 (permanent and primary). */
-export const fdiTooth = z.coerce
-  .number({ message: 'Enter an FDI tooth number.' })
-  .refine((value) => isValidFdiTooth(value), 'Not an FDI tooth number (ISO 3950: 11–18, 21–28, 31–38, 41–48, 51–55 … 81–85).');
+const FDI_MESSAGE = 'Not an FDI tooth number (ISO 3950: 11–18, 21–28, 31–38, 41–48, 51–55 … 81–85).';
+
+/** FDI two-digit tooth number, ISO 3950 (permanent and primary), as a JSON number. */
+export const fdiTooth = z.number({ message: 'Enter an FDI tooth number.' }).refine((value) => isValidFdiTooth(value), FDI_MESSAGE);
+
+/** The same in a query string: exactly two digits, e.g. `?tooth=11`. */
+export const fdiToothParam = z
+  .string()
+  .refine((value) => isValidFdiTooth(value), FDI_MESSAGE)
+  .transform(Number);
 
 /** Jemt papilla index 0–4. */
 export const papillaScore = z.number().int('Use a whole score.').min(0, 'Score 0–4.').max(4, 'Score 0–4.');

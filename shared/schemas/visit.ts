@@ -33,13 +33,28 @@ export const visitCreateSchema = z.object({
 export type VisitCreateRequest = z.input<typeof visitCreateSchema>;
 export type VisitCreate = z.output<typeof visitCreateSchema>;
 
+/** A correction of one site's readings: only the fields sent change; the others stay as recorded. */
+export const siteMeasurementPatchSchema = z.object({
+  siteId: z.number().int().positive(),
+  refGm: millimetres.optional(),
+  probingDepth: millimetres.nullable().optional(),
+  bleedingOnProbing: z.boolean().nullable().optional(),
+  ktWidth: millimetres.nullable().optional(),
+  papillaScore: papillaScore.nullable().optional(),
+});
+
 /** `PATCH /api/visits/:id`: edits after entry, always with a reason. */
 export const visitUpdateSchema = z.object({
   visitDate: pastOrTodayDate.optional(),
   pain: zeroToTen.nullable().optional(),
   satisfaction: zeroToTen.nullable().optional(),
   notes: note().optional(),
-  measurements: measurementsSchema.optional(),
+  measurements: z
+    .array(siteMeasurementPatchSchema)
+    .min(1, 'Enter at least one site.')
+    .max(64)
+    .refine((rows) => new Set(rows.map((row) => row.siteId)).size === rows.length, 'Each site may appear once.')
+    .optional(),
   confirmLargeChange: z.boolean().default(false),
   version,
   reason: changeReason,

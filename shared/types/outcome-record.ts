@@ -142,6 +142,8 @@ export interface StabilitySummary {
 export interface PapillaSummary {
   readonly nSites: number;
   readonly nPatients: number;
+  /** The Jemt score itself at this interval, site and patient level. */
+  readonly score: LevelledSummary;
   /** Share of each score 0–4 among sites scored at this interval. */
   readonly distribution: readonly { readonly score: number; readonly estimate: ProportionEstimate }[];
   /** Recall score − baseline score, for sites scored at both. */

@@ -112,6 +112,18 @@ export class ApiClient {
     return this.send('delete', url);
   }
 
+  /**
+   * A multipart POST as the photo form sends it: text fields plus an optional file in
+   * field `file` with the given file name and declared content type.
+   */
+  async upload(url: string, fields: Record<string, string>, file?: { bytes: Buffer; filename: string; contentType?: string }): Promise<Response> {
+    if (!this.xsrf) await this.get('/api/auth/me');
+    let pending = this.agent.post(url).set('X-XSRF-TOKEN', this.xsrf);
+    for (const [name, value] of Object.entries(fields)) pending = pending.field(name, value);
+    if (file) pending = pending.attach('file', file.bytes, { filename: file.filename, contentType: file.contentType ?? 'image/jpeg' });
+    return this.track(await pending);
+  }
+
   async signIn(email: string, password = DEMO_PASSWORD): Promise<Response> {
     return this.post('/api/auth/login', { email, password });
   }
