@@ -111,17 +111,22 @@ describe('describe', () => {
       );
     });
 
-    it('agrees with simple-statistics (SD and type-7 quantiles)', () => {
+    it('agrees with simple-statistics (SD and sort-based type-7 quantiles), with and without ties', () => {
+      const withTies = fc.array(fc.integer({ min: 0, max: 12 }).map((steps) => steps / 2), { minLength: 1, maxLength: 2000 });
+      const anyValues = fc.array(fc.double({ min: -1e6, max: 1e6, noNaN: true }), { minLength: 1, maxLength: 2000 });
       fc.assert(
-        fc.property(sample, (values) => {
+        fc.property(fc.oneof(withTies, anyValues), (values) => {
           const r = describeValues(values);
           const tolerance = 1e-9 * (1 + Math.max(...values.map(Math.abs)));
+          const sd = values.length > 1 ? sampleStandardDeviation(values) : null;
           return (
-            Math.abs((r.sd ?? 0) - sampleStandardDeviation(values)) <= tolerance &&
+            (sd === null ? r.sd === null : Math.abs((r.sd ?? Number.NaN) - sd) <= tolerance) &&
+            Math.abs(r.median - quantile(values, 0.5)) <= tolerance &&
             Math.abs(r.q1 - quantile(values, 0.25)) <= tolerance &&
             Math.abs(r.q3 - quantile(values, 0.75)) <= tolerance
           );
         }),
+        { numRuns: 300 },
       );
     });
   });

@@ -1,17 +1,39 @@
 import tQuantile from '@stdlib/stats-base-dists-t-quantile';
 import type { DescriptiveStatistics } from '../shared/types/outcome-record';
 import { assertFiniteSample } from './assert-finite-sample';
+import { selectKth } from './select-kth';
 
 /**
- * Type-7 quantile of an ascending array (R's default, numpy's "linear"):
- * h = (n − 1)p, Q = x[⌊h⌋] + (h − ⌊h⌋)(x[⌊h⌋ + 1] − x[⌊h⌋]).
- * Same rule as simple-statistics `quantileSorted`, written for a Float64Array.
+ * Type-7 quantile (R's default, numpy's "linear"): h = (n − 1)p,
+ * Q = x₍⌊h⌋₎ + (h − ⌊h⌋)(x₍⌊h⌋+1₎ − x₍⌊h⌋₎), the same rule as simple-statistics
+ * `quantileSorted`, given x₍⌊h⌋₎ already in place at index ⌊h⌋ of `work` with
+ * nothing smaller after it. x₍⌊h⌋+1₎ is then the smallest value after that index.
  */
-function quantileOfSorted(sorted: Float64Array, p: number): number {
-  const h = (sorted.length - 1) * p;
+function interpolateType7(work: Float64Array, p: number): number {
+  const h = (work.length - 1) * p;
   const lower = Math.floor(h);
-  const upper = Math.ceil(h);
-  return sorted[lower] + (h - lower) * (sorted[upper] - sorted[lower]);
+  const fraction = h - lower;
+  if (fraction === 0) return work[lower];
+  let next = Number.POSITIVE_INFINITY;
+  for (let i = lower + 1; i < work.length; i++) if (work[i] < next) next = work[i];
+  return work[lower] + fraction * (next - work[lower]);
+}
+
+/**
+ * Median, q1 and q3 by selection ({@link selectKth}) instead of a full sort: the
+ * median's order statistic first, then q3's among the values after it and q1's
+ * among those before it. The three ranges never overlap, so each selection leaves
+ * the others' order statistics where they are.
+ */
+function quartilesBySelection(work: Float64Array): { median: number; q1: number; q3: number } {
+  const last = work.length - 1;
+  const medianIndex = Math.floor(last * 0.5);
+  selectKth(work, medianIndex, 0, last);
+  const q3Index = Math.floor(last * 0.75);
+  if (q3Index > medianIndex) selectKth(work, q3Index, medianIndex + 1, last);
+  const q1Index = Math.floor(last * 0.25);
+  if (q1Index < medianIndex) selectKth(work, q1Index, 0, medianIndex - 1);
+  return { median: interpolateType7(work, 0.5), q1: interpolateType7(work, 0.25), q3: interpolateType7(work, 0.75) };
 }
 
 /**
@@ -38,7 +60,8 @@ function compensatedSum(values: Float64Array, shift: number): number {
  *   which passes the NIST StRD univariate tests (NumAcc1–3) where the one-pass
  *   sum-of-squares formula fails;
  * - se = s / √n; 95% CI = x̄ ± t(0.975, n − 1)·se, t quantile from @stdlib;
- * - median, q1, q3 by R's default type-7 quantile (Hyndman & Fan, Am Stat 1996;50:361–365).
+ * - median, q1, q3 by R's default type-7 quantile (Hyndman & Fan, Am Stat 1996;50:361–365),
+ *   found by selection ({@link selectKth}) in linear time instead of sorting.
  *
  * Works on a copy, so the caller's array is left untouched. With n = 1, sd, se and
  * ci95 are null (no spread can be estimated from one value).
@@ -51,27 +74,27 @@ function compensatedSum(values: Float64Array, shift: number): number {
  */
 export function describe(values: ArrayLike<number>): DescriptiveStatistics {
   assertFiniteSample(values, 'describe: values');
-  const sorted = Float64Array.from(values).sort();
-  const n = sorted.length;
+  const work = Float64Array.from(values);
+  const n = work.length;
+  let min = work[0];
+  let max = work[0];
+  for (let i = 1; i < n; i++) {
+    if (work[i] < min) min = work[i];
+    else if (work[i] > max) max = work[i];
+  }
   // Two-pass: a first estimate of the mean, then a corrected mean and the
   // squared deviations about it.
-  const roughMean = compensatedSum(sorted, 0) / n;
-  const min = sorted[0];
-  const max = sorted[n - 1];
+  const roughMean = compensatedSum(work, 0) / n;
   // Rounding can push the mean of a constant sample a hair outside [min, max].
-  const mean = Math.min(max, Math.max(min, roughMean + compensatedSum(sorted, roughMean) / n));
-  const quartiles = {
-    median: quantileOfSorted(sorted, 0.5),
-    q1: quantileOfSorted(sorted, 0.25),
-    q3: quantileOfSorted(sorted, 0.75),
-  };
+  const mean = Math.min(max, Math.max(min, roughMean + compensatedSum(work, roughMean) / n));
+  const quartiles = quartilesBySelection(work);
   if (n === 1) {
     return { n, mean, sd: null, se: null, ci95: null, ...quartiles, min, max };
   }
   let sumSquares = 0;
   let sumDeviations = 0;
   for (let i = 0; i < n; i++) {
-    const deviation = sorted[i] - mean;
+    const deviation = work[i] - mean;
     sumSquares += deviation * deviation;
     sumDeviations += deviation;
   }

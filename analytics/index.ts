@@ -53,3 +53,15 @@ export {
   type StandardEvaluation,
   type StandardVerdict,
 } from './evaluate-standard';
+
+// Audit-level results composed from the functions above (AuditDataset in, shared result types out)
+export { standardResult } from './standard-result';
+export { groupDataset, NOT_RECORDED_KEY, type AuditDatasetGroup } from './group-dataset';
+export { reboundHistogram, MAX_HISTOGRAM_BINS } from './rebound-histogram';
+export { operatorFunnel, EXACT_LIMITS_BELOW_N, type OperatorFunnelOptions } from './operator-funnel';
+export { monthlyTrend, type TrendCusumOptions } from './monthly-trend';
+export { timeToRelapse } from './time-to-relapse';
+export { newcombeDifferenceInterval, type NewcombeInterval } from './newcombe-difference-interval';
+export { compareStandard } from './compare-standard';
+export { calibrationAgreement } from './calibration-agreement';
+export { cohortCounts } from './cohort-counts';

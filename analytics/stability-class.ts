@@ -8,7 +8,7 @@ export const DEFAULT_STABILITY_THRESHOLDS: StabilityThresholds = { stable: 0.5, 
  * Rounding slack in mm: 2.6 − 2.1 is 0.5000000000000002 in floating point and must
  * still count as 0.5 mm. Far below the 0.5 mm probe resolution.
  */
-const TOLERANCE_MM = 1e-9;
+export const STABILITY_TOLERANCE_MM = 1e-9;
 
 /**
  * Stability class of a site from its rebound (DESIGN.md §3; thresholds set per audit):
@@ -31,8 +31,8 @@ export function stabilityClass(
     throw new AnalyticsInputError(`stabilityClass: rebound must be a finite number of mm, got ${String(reboundMm)}`);
   }
   assertStabilityThresholds(thresholds);
-  if (reboundMm <= thresholds.stable + TOLERANCE_MM) return 'stable';
-  if (reboundMm <= thresholds.relapse + TOLERANCE_MM) return 'minor';
+  if (reboundMm <= thresholds.stable + STABILITY_TOLERANCE_MM) return 'stable';
+  if (reboundMm <= thresholds.relapse + STABILITY_TOLERANCE_MM) return 'minor';
   return 'relapse';
 }
 

@@ -103,6 +103,7 @@ describe('summariseOutcomes', () => {
     expect(sixWeeks.papilla.distribution.map((d) => d.estimate.count)).toEqual([0, 0, 1, 0, 0]);
     expect(sixWeeks.papilla.change.site?.mean).toBe(-1);
     expect(sixMonths.papilla).toMatchObject({ unchanged: 1 });
+    expect(sixMonths.papilla.score.site).toMatchObject({ n: 1, mean: 3 });
   });
 
   it('6 weeks: unmeasured sites are left out, zero rebound is stable', () => {
@@ -130,6 +131,13 @@ describe('summariseOutcomes', () => {
     expect([stable.count, minor.count, relapse.count]).toEqual([1, 0, 2]);
   });
 
+  it('accepts any iterable, read once (e.g. rows mapped from a database cursor)', () => {
+    function* stream(): Generator<OutcomeRecord> {
+      yield* RECORDS;
+    }
+    expect(summariseOutcomes(stream(), OPTIONS)).toEqual(summary);
+  });
+
   it('no records: an empty but complete summary', () => {
     const empty = summariseOutcomes([], { ...OPTIONS, cases: [] });
     expect(empty).toMatchObject({ nRecords: 0, nSites: 0, nPatients: 0 });
@@ -145,6 +153,8 @@ describe('summariseOutcomes', () => {
     expect(() => summariseOutcomes(badPapilla, OPTIONS)).toThrow(/recallPapilla/);
     expect(() => summariseOutcomes(RECORDS, { ...OPTIONS, asOf: 'yesterday' })).toThrow(/asOf/);
     expect(() => summariseOutcomes(RECORDS, { ...OPTIONS, thresholds: { stable: 2, relapse: 1 } })).toThrow(/stable ≤ relapse/);
+    expect(() => summariseOutcomes(JSON.parse('{"length":0}'), OPTIONS)).toThrow(/iterable/);
+    expect(() => summariseOutcomes(JSON.parse('[null]'), OPTIONS)).toThrow(/records\[0\] must be a record object/);
   });
 
   it('properties: classes add up to nSites, patients ≤ sites, mean rebound + mean retained = mean gain', () => {

@@ -1,6 +1,5 @@
 import type {
   CaseOutcome,
-  IntervalOutcomeSummary,
   OutcomeRecord,
   OutcomeSummary,
   RecallInterval,
@@ -9,12 +8,11 @@ import type {
 import { AnalyticsInputError } from './analytics-input-error';
 import { MAX_PLAUSIBLE_MM } from './assert-millimetres';
 import { assertRecallSchedule } from './assert-recall-schedule';
-import { LevelledAccumulator } from './levelled-accumulator';
-import { proportionEstimate } from './proportion-estimate';
-import { DEFAULT_STABILITY_THRESHOLDS, assertStabilityThresholds, stabilityClass } from './stability-class';
+import { DistinctIdCounter } from './distinct-id-counter';
+import { IntervalAccumulator } from './interval-accumulator';
+import { DEFAULT_STABILITY_THRESHOLDS, assertStabilityThresholds } from './stability-class';
 import { summariseComplications } from './summarise-complications';
 import { summariseRecallCompletion } from './summarise-recall-completion';
-import { assertArray } from './assert-array';
 
 /** Options of {@link summariseOutcomes}. */
 export interface SummariseOutcomesOptions {
@@ -40,6 +38,7 @@ function isPapillaScore(value: number): boolean {
 
 /** Describes the first implausible field of a record, or returns null when the record is usable. */
 function recordProblem(record: OutcomeRecord): string | null {
+  if (typeof record !== 'object' || record === null) return 'must be a record object';
   if (!Number.isFinite(record.patientId)) return `patientId must be a number, got ${String(record.patientId)}`;
   if (!Number.isFinite(record.siteId)) return `siteId must be a number, got ${String(record.siteId)}`;
   if (!isMillimetres(record.baselineRefGm)) return `baselineRefGm must be 0–${MAX_PLAUSIBLE_MM} mm, got ${String(record.baselineRefGm)}`;
@@ -59,97 +58,6 @@ function recordProblem(record: OutcomeRecord): string | null {
 }
 
 /**
- * Margin and papilla outcomes of the rows of one interval (`rows` indexes `records`).
- * Rebound = post-op − recall, retained gain = recall − baseline, % retained =
- * retained / gain × 100 (sites with zero gain left out), on every row with both
- * post-op and recall REF→GM, whatever the site's location.
- */
-function summariseInterval(
-  records: readonly OutcomeRecord[],
-  rows: Int32Array,
-  patientOfRow: Int32Array,
-  patientSlots: number,
-  interval: RecallInterval,
-  thresholds: StabilityThresholds,
-): IntervalOutcomeSummary {
-  const capacity = rows.length;
-  const reboundLevels = new LevelledAccumulator(capacity, patientSlots);
-  const retainedLevels = new LevelledAccumulator(capacity, patientSlots);
-  const percentLevels = new LevelledAccumulator(capacity, patientSlots);
-  const papillaChangeLevels = new LevelledAccumulator(capacity, patientSlots);
-  const stabilityCounts = { stable: 0, minor: 0, relapse: 0 };
-  let flaggedForReview = 0;
-  const papillaCounts = new Int32Array(MAX_PAPILLA + 1);
-  const papillaPatients = new Uint8Array(patientSlots);
-  let papillaPatientCount = 0;
-  let improved = 0;
-  let unchanged = 0;
-  let worsened = 0;
-
-  for (let i = 0; i < rows.length; i++) {
-    const record = records[rows[i]];
-    const patient = patientOfRow[rows[i]];
-    const { baselineRefGm: baseline, postOpRefGm: postOp, recallRefGm: recall } = record;
-    // Inline arithmetic rather than the public crownGain/rebound/… functions: the
-    // rows were validated once up front, and this loop runs 500,000 times.
-    if (postOp !== null && recall !== null) {
-      const reboundMm = postOp - recall;
-      reboundLevels.add(reboundMm, patient);
-      retainedLevels.add(recall - baseline, patient);
-      const gain = postOp - baseline;
-      if (gain !== 0) percentLevels.add(((recall - baseline) / gain) * 100, patient);
-      stabilityCounts[stabilityClass(reboundMm, thresholds)]++;
-      if (reboundMm < 0) flaggedForReview++;
-    }
-    const { recallPapilla, baselinePapilla } = record;
-    if (recallPapilla !== null) {
-      papillaCounts[recallPapilla]++;
-      if (papillaPatients[patient] === 0) {
-        papillaPatients[patient] = 1;
-        papillaPatientCount++;
-      }
-      if (baselinePapilla !== null) {
-        const change = recallPapilla - baselinePapilla;
-        papillaChangeLevels.add(change, patient);
-        if (change > 0) improved++;
-        else if (change < 0) worsened++;
-        else unchanged++;
-      }
-    }
-  }
-
-  const rebound = reboundLevels.summarise();
-  const papillaSites = papillaCounts.reduce((sum, count) => sum + count, 0);
-  return {
-    intervalKey: interval.key,
-    label: interval.label,
-    targetDays: interval.targetDays,
-    nRecords: rows.length,
-    nSites: rebound.nSites,
-    nPatients: rebound.nPatients,
-    rebound,
-    retainedGain: retainedLevels.summarise(),
-    percentRetained: percentLevels.summarise(),
-    stability: {
-      thresholds,
-      stable: proportionEstimate(stabilityCounts.stable, rebound.nSites),
-      minor: proportionEstimate(stabilityCounts.minor, rebound.nSites),
-      relapse: proportionEstimate(stabilityCounts.relapse, rebound.nSites),
-      flaggedForReview: proportionEstimate(flaggedForReview, rebound.nSites),
-    },
-    papilla: {
-      nSites: papillaSites,
-      nPatients: papillaPatientCount,
-      distribution: [...papillaCounts].map((count, score) => ({ score, estimate: proportionEstimate(count, papillaSites) })),
-      change: papillaChangeLevels.summarise(),
-      improved,
-      unchanged,
-      worsened,
-    },
-  };
-}
-
-/**
  * Cohort summary for the audit screens (DESIGN.md §3–§4). For each recall interval:
  * site-level and patient-level (mean of each patient's sites) descriptive statistics
  * of rebound, retained gain and % retained; shares of stable / minor / relapse sites
@@ -159,70 +67,68 @@ function summariseInterval(
  * ({@link summariseComplications}) and recall completion with loss to follow-up
  * ({@link summariseRecallCompletion}). Every block reports n sites and n patients.
  *
- * Rows whose interval key is not in the schedule are counted and ignored. All rows
- * are validated first (REF→GM 0–20 mm, papilla integer 0–4), so a bad row fails the
- * whole summary with its index rather than skewing it quietly.
+ * Rows whose interval key is not in the schedule are counted and ignored. Every row
+ * is validated (REF→GM 0–20 mm, papilla integer 0–4), so a bad row fails the whole
+ * summary with its index rather than skewing it quietly. Records are read once, in
+ * one pass, so they may be an array or any iterable (e.g. a mapped database cursor).
  *
- * @param records one row per site per visit
+ * @param records one row per site per visit (array or iterable)
  * @param options { cases, schedule, thresholds?, asOf }
  * @returns the {@link OutcomeSummary}
  * @throws {AnalyticsInputError} on an invalid row, schedule, thresholds, case or date
  */
-export function summariseOutcomes(records: readonly OutcomeRecord[], options: SummariseOutcomesOptions): OutcomeSummary {
-  assertArray(records, 'summariseOutcomes: records');
+export function summariseOutcomes(records: Iterable<OutcomeRecord>, options: SummariseOutcomesOptions): OutcomeSummary {
+  if (records === null || typeof records !== 'object' || !(Symbol.iterator in records)) {
+    throw new AnalyticsInputError('summariseOutcomes: records must be an array or another iterable of records');
+  }
   const { cases, schedule, thresholds = DEFAULT_STABILITY_THRESHOLDS, asOf } = options;
   assertRecallSchedule(schedule);
   assertStabilityThresholds(thresholds);
   const recall = summariseRecallCompletion(cases, schedule, asOf);
 
   const intervalIndex = new Map(schedule.map((interval, k) => [interval.key, k]));
+  const accumulators = schedule.map((interval) => new IntervalAccumulator(interval, thresholds));
   const patientIndex = new Map<number, number>();
-  const siteIds = new Set<number>();
-  const intervalOfRow = new Int32Array(records.length);
-  const patientOfRow = new Int32Array(records.length);
-  const rowsPerInterval = new Int32Array(schedule.length);
+  const siteIds = new DistinctIdCounter();
+  let nRecords = 0;
   let nUnscheduledRecords = 0;
-  for (let row = 0; row < records.length; row++) {
-    const record = records[row];
+  // Rows usually arrive grouped by visit, so the previous row's patient and interval
+  // answer most look-ups without touching the maps.
+  let lastPatientId = Number.NaN;
+  let lastPatient = -1;
+  let lastIntervalKey: string | null = null;
+  let lastInterval: number | undefined;
+  // One streaming pass: records can come straight from a database cursor and are
+  // never held, which keeps a 500,000-row cohort within a few megabytes here.
+  for (const record of records) {
     const problem = recordProblem(record);
-    if (problem !== null) throw new AnalyticsInputError(`summariseOutcomes: records[${row}] ${problem}`);
-    let patient = patientIndex.get(record.patientId);
-    if (patient === undefined) {
-      patient = patientIndex.size;
-      patientIndex.set(record.patientId, patient);
+    if (problem !== null) throw new AnalyticsInputError(`summariseOutcomes: records[${nRecords}] ${problem}`);
+    nRecords++;
+    if (record.patientId !== lastPatientId) {
+      let patient = patientIndex.get(record.patientId);
+      if (patient === undefined) {
+        patient = patientIndex.size;
+        patientIndex.set(record.patientId, patient);
+      }
+      lastPatientId = record.patientId;
+      lastPatient = patient;
     }
-    patientOfRow[row] = patient;
     siteIds.add(record.siteId);
-    const k = intervalIndex.get(record.intervalKey);
-    if (k === undefined) {
-      intervalOfRow[row] = -1;
-      nUnscheduledRecords++;
-    } else {
-      intervalOfRow[row] = k;
-      rowsPerInterval[k]++;
+    if (record.intervalKey !== lastIntervalKey) {
+      lastIntervalKey = record.intervalKey;
+      lastInterval = intervalIndex.get(record.intervalKey);
     }
+    if (lastInterval === undefined) nUnscheduledRecords++;
+    else accumulators[lastInterval].add(record, lastPatient);
   }
 
-  // Counting sort of row indices by interval, so each interval reads its rows contiguously.
-  const starts = new Int32Array(schedule.length + 1);
-  for (let k = 0; k < schedule.length; k++) starts[k + 1] = starts[k] + rowsPerInterval[k];
-  const order = new Int32Array(starts[schedule.length]);
-  const cursor = starts.slice(0, schedule.length);
-  for (let row = 0; row < records.length; row++) {
-    const k = intervalOfRow[row];
-    if (k >= 0) order[cursor[k]++] = row;
-  }
-
-  const intervals = schedule.map((interval, k) =>
-    summariseInterval(records, order.subarray(starts[k], starts[k + 1]), patientOfRow, patientIndex.size, interval, thresholds),
-  );
   return {
     asOf,
-    nRecords: records.length,
+    nRecords,
     nUnscheduledRecords,
     nSites: siteIds.size,
     nPatients: patientIndex.size,
-    intervals,
+    intervals: accumulators.map((accumulator) => accumulator.summarise(patientIndex.size)),
     complications: summariseComplications(cases),
     recall,
   };

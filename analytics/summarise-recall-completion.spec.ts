@@ -81,5 +81,9 @@ describe('summariseRecallCompletion', () => {
       AnalyticsInputError,
     );
     expect(() => summariseRecallCompletion(CASES, [], '2024-09-01')).toThrow(/at least one interval/);
+    const badVisit = [caseOutcome(7, '2024-01-10', [['6w', '2024-02-31']])];
+    expect(() => summariseRecallCompletion(badVisit, DEFAULT_RECALL_SCHEDULE, '2024-09-01')).toThrow(
+      /cases\[0\] \(case 7\): visitDate must be an ISO date YYYY-MM-DD, got 2024-02-31/,
+    );
   });
 });

@@ -63,22 +63,33 @@ export function summariseRecallCompletion(
       throw new AnalyticsInputError(`summariseRecallCompletion: case ${outcome.caseId} appears twice`);
     }
     caseIds.add(outcome.caseId);
-    const surgeryDay = isoDateToDayNumber(outcome.surgeryDate, `cases[${i}].surgeryDate`);
-    if (outcome.isWithdrawn) {
-      nWithdrawn++;
-      return;
-    }
-    assertArray(outcome.visits, `cases[${i}].visits`);
+    let surgeryDay: number;
     visitDays.fill(Number.NaN);
-    outcome.visits.forEach(({ intervalKey, visitDate }, j) => {
-      const k = intervalIndex.get(intervalKey);
-      const day = isoDateToDayNumber(visitDate, `cases[${i}].visits[${j}].visitDate`);
-      // The first visit for an interval is the one that counts.
-      if (k !== undefined && !(day >= visitDays[k])) visitDays[k] = day;
-    });
+    // Dates are checked without building a per-visit label (this runs for every visit
+    // of every case); on failure the error is re-thrown naming the case.
+    try {
+      surgeryDay = isoDateToDayNumber(outcome.surgeryDate, 'surgeryDate');
+      if (outcome.isWithdrawn) {
+        nWithdrawn++;
+        return;
+      }
+      assertArray(outcome.visits, 'visits');
+      for (const { intervalKey, visitDate } of outcome.visits) {
+        const k = intervalIndex.get(intervalKey);
+        const day = isoDateToDayNumber(visitDate, 'visitDate');
+        // The first visit for an interval is the one that counts.
+        if (k !== undefined && !(day >= visitDays[k])) visitDays[k] = day;
+      }
+    } catch (error) {
+      if (error instanceof AnalyticsInputError) {
+        throw new AnalyticsInputError(`summariseRecallCompletion: cases[${i}] (case ${outcome.caseId}): ${error.message}`);
+      }
+      throw error;
+    }
 
     let lastClosed = -1;
-    byTarget.forEach((k, position) => {
+    for (let position = 0; position < byTarget.length; position++) {
+      const k = byTarget[position];
       const { targetDays, windowBeforeDays, windowAfterDays } = schedule[k];
       const opens = surgeryDay + targetDays - windowBeforeDays;
       const closes = surgeryDay + targetDays + windowAfterDays;
@@ -92,10 +103,13 @@ export function summariseRecallCompletion(
       else if (today > closes) tally.missed++;
       else tally.pending++;
       if (today > closes) lastClosed = position;
-    });
+    }
     if (lastClosed >= 0) {
       evaluable++;
-      const isSeenSince = byTarget.slice(lastClosed).some((k) => !Number.isNaN(visitDays[k]));
+      let isSeenSince = false;
+      for (let position = lastClosed; position < byTarget.length && !isSeenSince; position++) {
+        isSeenSince = !Number.isNaN(visitDays[byTarget[position]]);
+      }
       if (!isSeenSince) lost++;
     }
   });

@@ -31,6 +31,15 @@ import { RecallService } from './services/recall.service';
 import { SiteService } from './services/site.service';
 import { UserService } from './services/user.service';
 import { VisitService } from './services/visit.service';
+import { AuditCycleService } from './services/audit-cycle.service';
+import { AuditDatasetService } from './services/audit-dataset.service';
+import { AuditResultsService } from './services/audit-results.service';
+import { AuditService } from './services/audit.service';
+import { CalibrationService } from './services/calibration.service';
+import { ScheduleService } from './services/schedule.service';
+import { auditPartRoutes, auditRoutes } from './routes/audits.routes';
+import { calibrationRoutes } from './routes/calibration.routes';
+import { scheduleRoutes } from './routes/schedules.routes';
 import type { PhotoStorage } from './storage/photo-storage';
 
 /** Idle timeout: the cookie (and the row) expire 30 minutes after the last request. */
@@ -75,6 +84,12 @@ export interface ClinicalServices {
   photos: PhotoService;
   recalls: RecallService;
   history: HistoryService;
+  schedules: ScheduleService;
+  audits: AuditService;
+  datasets: AuditDatasetService;
+  cycles: AuditCycleService;
+  results: AuditResultsService;
+  calibration: CalibrationService;
 }
 
 /** Wires the services on one data source. */
@@ -82,15 +97,25 @@ export function createServices(dataSource: DataSource, photoStorage: PhotoStorag
   const operators = new OperatorDirectory(dataSource);
   const patients = new PatientService(dataSource);
   const cases = new CaseService(dataSource, operators, patients);
+  const schedules = new ScheduleService(dataSource);
+  const audits = new AuditService(dataSource, schedules, operators);
+  const datasets = new AuditDatasetService(dataSource);
+  const cycles = new AuditCycleService(dataSource, audits, schedules, datasets, operators);
   return {
+    schedules,
+    audits,
+    datasets,
+    cycles,
+    results: new AuditResultsService(audits, cycles, operators),
+    calibration: new CalibrationService(dataSource, cases),
     operators,
     patients,
     cases,
     sites: new SiteService(dataSource, cases),
-    visits: new VisitService(dataSource, cases, operators),
+    visits: new VisitService(dataSource, cases, operators, schedules),
     complications: new ComplicationService(dataSource, cases),
     photos: new PhotoService(dataSource, cases, operators, photoStorage),
-    recalls: new RecallService(dataSource, operators),
+    recalls: new RecallService(dataSource, operators, schedules),
     history: new HistoryService(dataSource, operators),
   };
 }
@@ -173,6 +198,13 @@ export function createApp(options: AppOptions): TidemarkApp {
   api.use('/photos', photoRoutes(services.photos));
   api.use('/recalls', recallRoutes(services.recalls));
   api.use('/history', historyRoutes(services.history));
+  api.use('/schedules', scheduleRoutes(services.schedules));
+  api.use('/audits', auditRoutes(services));
+  const parts = auditPartRoutes(services);
+  api.use('/standards', parts.standards);
+  api.use('/cycles', parts.cycles);
+  api.use('/actions', parts.actions);
+  api.use('/calibration-readings', calibrationRoutes(services.calibration));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -2,10 +2,17 @@ import 'reflect-metadata';
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { DataSource } from 'typeorm';
+import { ActionItem } from './entities/action-item.entity';
+import { AuditCycle } from './entities/audit-cycle.entity';
+import { AuditStandard } from './entities/audit-standard.entity';
+import { Audit } from './entities/audit.entity';
+import { CalibrationReading } from './entities/calibration-reading.entity';
 import { ChangeRecord } from './entities/change-record.entity';
 import { Complication } from './entities/complication.entity';
 import { Patient } from './entities/patient.entity';
 import { Photo } from './entities/photo.entity';
+import { RecallSchedule } from './entities/recall-schedule.entity';
+import { ReviewNote } from './entities/review-note.entity';
 import { SessionRow } from './entities/session.entity';
 import { SiteMeasurement } from './entities/site-measurement.entity';
 import { Site } from './entities/site.entity';
@@ -15,7 +22,7 @@ import { Visit } from './entities/visit.entity';
 import { migrations } from './migrations';
 
 /** Every entity the application maps. */
-export const entities = [User, SessionRow, Patient, SurgicalCase, Site, Visit, SiteMeasurement, Complication, Photo, ChangeRecord];
+export const entities = [User, SessionRow, Patient, SurgicalCase, Site, Visit, SiteMeasurement, Complication, Photo, ChangeRecord, RecallSchedule, Audit, AuditStandard, AuditCycle, ActionItem, ReviewNote, CalibrationReading];
 
 /** Options for {@link createDataSource}. */
 export interface DataSourceOptions {

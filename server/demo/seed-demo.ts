@@ -12,6 +12,7 @@ import type { UserService } from '../services/user.service';
 import { DEMO_ACCOUNTS, DEMO_OPERATORS, DEMO_PASSWORD } from './demo-accounts';
 import { generateDemoPractice } from './demo-practice';
 import { demoPhotograph } from './demo-photo';
+import { seedDemoAudits } from './seed-demo-audits';
 
 /** What the seed wrote. */
 export interface DemoSeedReport {
@@ -93,5 +94,6 @@ export async function seedDemo(dataSource: DataSource, users: UserService, servi
       report.photos++;
     }
   }
+  await seedDemoAudits(dataSource, services, today);
   return report;
 }

@@ -1,5 +1,6 @@
 import { PlatformFoundation1764640000000 } from './1764640000000-platform-foundation';
 import { ClinicalRecords1764700000000 } from './1764700000000-clinical-records';
+import { Audits1764800000000 } from './1764800000000-audits';
 
 /** Migrations in the order they run. Add new ones at the end. */
-export const migrations = [PlatformFoundation1764640000000, ClinicalRecords1764700000000];
+export const migrations = [PlatformFoundation1764640000000, ClinicalRecords1764700000000, Audits1764800000000];

@@ -1,12 +1,13 @@
 import type { DataSource } from 'typeorm';
 import { In } from 'typeorm';
 import type { RecallDueItem, RecallDueList, RecallInterval } from '@tidemark/shared';
-import { DEFAULT_RECALL_SCHEDULE, todayIso } from '@tidemark/shared';
+import { todayIso } from '@tidemark/shared';
 import { Site } from '../entities/site.entity';
 import { SurgicalCase } from '../entities/surgical-case.entity';
 import { Visit } from '../entities/visit.entity';
 import { Patient } from '../entities/patient.entity';
 import type { OperatorDirectory } from './operator-directory';
+import type { ScheduleService } from './schedule.service';
 
 /** Days ahead that count as "upcoming". */
 export const UPCOMING_DAYS = 14;
@@ -32,9 +33,11 @@ export class RecallService {
   constructor(
     private readonly dataSource: DataSource,
     private readonly operators: OperatorDirectory,
+    private readonly schedules: ScheduleService,
   ) {}
 
-  async due(user: Express.User, asOf = todayIso(), schedule: readonly RecallInterval[] = DEFAULT_RECALL_SCHEDULE): Promise<RecallDueList> {
+  async due(user: Express.User, asOf = todayIso()): Promise<RecallDueList> {
+    const schedule: readonly RecallInterval[] = await this.schedules.practiceSchedule();
     const where = { status: In(['operated', 'in-recall']), ...(user.role === 'clinician' ? { operatorId: user.id } : {}) };
     const cases = await this.dataSource.getRepository(SurgicalCase).find({ where, order: { surgeryDate: 'ASC' } });
     const ids = cases.map((found) => found.id);

@@ -2,7 +2,7 @@ import type { DataSource, EntityManager } from 'typeorm';
 import { In, LessThan } from 'typeorm';
 import { z } from 'zod';
 import type { CaseDetail } from '@tidemark/shared';
-import { DEFAULT_RECALL_SCHEDULE, LARGE_CHANGE_MM, visitCreateSchema, visitUpdateSchema } from '@tidemark/shared';
+import { LARGE_CHANGE_MM, visitCreateSchema, visitUpdateSchema } from '@tidemark/shared';
 import { SiteMeasurement } from '../entities/site-measurement.entity';
 import { Site } from '../entities/site.entity';
 import type { SurgicalCase } from '../entities/surgical-case.entity';
@@ -13,6 +13,7 @@ import { appendChanges, diffFields, type FieldChange } from './change-log';
 import type { CaseService } from './case.service';
 import { clinicalAccess } from './clinical-access';
 import type { OperatorDirectory } from './operator-directory';
+import type { ScheduleService } from './schedule.service';
 import { updateWithVersion } from './versioned-update';
 
 type VisitCreate = z.output<typeof visitCreateSchema>;
@@ -28,6 +29,7 @@ export class VisitService {
     private readonly dataSource: DataSource,
     private readonly cases: CaseService,
     private readonly operators: OperatorDirectory,
+    private readonly schedules: ScheduleService,
   ) {}
 
   async create(user: Express.User, caseId: number, body: VisitCreate): Promise<CaseDetail> {
@@ -36,7 +38,7 @@ export class VisitService {
       if (found.status === 'planned' || found.status === 'withdrawn' || found.status === 'concluded') {
         throw HttpError.conflict(`A ${found.status} case does not take recall visits.`);
       }
-      if (!DEFAULT_RECALL_SCHEDULE.some((interval) => interval.key === body.intervalKey)) {
+      if (!(await this.schedules.knownIntervalKeys()).has(body.intervalKey)) {
         throw HttpError.badRequest('Unknown recall interval.', { intervalKey: 'Choose an interval of the recall schedule.' });
       }
       this.assertAfterSurgery(found, body.visitDate);

@@ -73,7 +73,8 @@ export const caseUpdateSchema = z
     plaqueScorePct: percentage.nullable().optional(),
     deepestProbingMm: millimetres.nullable().optional(),
     sutureResorbable: z.boolean().nullable().optional(),
-    sutureSize: caseFields.sutureSize.optional(),
+    // No default here: a field left out of an update must stay as recorded.
+    sutureSize: z.string().trim().regex(/^\d-0$/, 'Use a size such as 5-0 or 6-0.').nullable().optional(),
     provisionalRestorations: z.boolean().optional(),
     intraOperativeEvents: note(1000).optional(),
     finalImpressionDate: isoDate.nullable().optional(),

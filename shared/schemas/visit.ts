@@ -60,3 +60,11 @@ export const visitUpdateSchema = z.object({
   reason: changeReason,
 });
 export type VisitUpdateRequest = z.input<typeof visitUpdateSchema>;
+
+/** `POST /api/calibration-readings`: one repeated REF→GM reading of a site for examiner calibration. */
+export const calibrationReadingSchema = z.object({
+  siteId: z.number().int().positive(),
+  measuredOn: pastOrTodayDate,
+  refGm: millimetres,
+});
+export type CalibrationReadingRequest = z.input<typeof calibrationReadingSchema>;

@@ -665,3 +665,20 @@ describe('GET /api/operators', () => {
     }
   });
 });
+
+describe('cases: updates keep what they do not mention', () => {
+  it('keeps the suture size when only the status moves', async () => {
+    const w = await createClinicalWorld();
+    try {
+      const lead = w.as('audit_lead');
+      const created = await lead.post('/api/cases', caseBody(w.ids.clinician, { sutureResorbable: true, sutureSize: '6-0', status: 'operated' }));
+      expect(created.status).toBe(201);
+      const moved = await lead.patch(`/api/cases/${created.body.id}`, { version: created.body.version, reason: 'Patient moved away', status: 'withdrawn', withdrawnReason: 'Moved away' });
+      expect(moved.status).toBe(200);
+      expect(moved.body.sutureSize).toBe('6-0');
+      expect((moved.body as CaseDetail).history.some((record) => record.field === 'sutureSize')).toBe(false);
+    } finally {
+      await w.close();
+    }
+  });
+});
