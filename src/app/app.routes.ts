@@ -19,7 +19,6 @@ function comingSoon(path: string, data: ComingSoonData): Route {
   };
 }
 
-const CLINICAL_RECORDS_RELEASE = 'Arrives with the clinical records release.';
 const AUDITS_RELEASE = 'Arrives with the audits release.';
 const GOVERNANCE_PACK_RELEASE = 'Arrives with the governance pack release.';
 
@@ -44,17 +43,32 @@ export const routes: Routes = [
           return user ? homePathFor(user.role) : SIGN_IN_PATH;
         },
       },
-      comingSoon('today', {
-        heading: 'Today',
-        purpose: "Today will gather what is due: recalls inside their window, overdue recalls and entries left unfinished.",
-        release: CLINICAL_RECORDS_RELEASE,
-      }),
-      comingSoon('cases', {
-        heading: 'Cases',
-        purpose:
-          'Cases will list every surgical case in a filterable table, each opening onto its visit timeline, site grid, photographs, complications and change history.',
-        release: CLINICAL_RECORDS_RELEASE,
-      }),
+      {
+        path: 'today',
+        title: 'Today',
+        canActivate: [roleGuard(...rolesFor('/today'))],
+        loadChildren: () => import('./features/today/today.routes').then((m) => m.TODAY_ROUTES),
+      },
+      {
+        // Registering a case: the roles that record clinical data (DESIGN.md §2).
+        path: 'cases/new',
+        title: 'New case',
+        canActivate: [roleGuard('audit_lead', 'clinician')],
+        loadChildren: () => import('./features/case-entry/case-entry.routes').then((m) => m.CASE_ENTRY_ROUTES),
+      },
+      {
+        // Entering or correcting one recall of a case.
+        path: 'cases/:caseId/recall/:intervalKey',
+        title: 'Recall entry',
+        canActivate: [roleGuard('audit_lead', 'clinician')],
+        loadChildren: () => import('./features/recall-entry/recall-entry.routes').then((m) => m.RECALL_ENTRY_ROUTES),
+      },
+      {
+        path: 'cases',
+        title: 'Cases',
+        canActivate: [roleGuard(...rolesFor('/cases'))],
+        loadChildren: () => import('./features/cases/cases.routes').then((m) => m.CASES_ROUTES),
+      },
       comingSoon('audits', {
         heading: 'Audits',
         purpose:
@@ -66,12 +80,12 @@ export const routes: Routes = [
         purpose: 'Reports will build the de-identified governance workbook and send it to the committee by e-mail.',
         release: GOVERNANCE_PACK_RELEASE,
       }),
-      comingSoon('history', {
-        heading: 'Change history',
-        purpose:
-          'Change history will show every edit to a clinical measurement: who made it, when, the old and new value and the reason given.',
-        release: CLINICAL_RECORDS_RELEASE,
-      }),
+      {
+        path: 'history',
+        title: 'Change history',
+        canActivate: [roleGuard(...rolesFor('/history'))],
+        loadChildren: () => import('./features/history/history.routes').then((m) => m.HISTORY_ROUTES),
+      },
       {
         path: 'team',
         title: 'Team',
