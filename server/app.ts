@@ -41,6 +41,9 @@ import { auditPartRoutes, auditRoutes } from './routes/audits.routes';
 import { calibrationRoutes } from './routes/calibration.routes';
 import { scheduleRoutes } from './routes/schedules.routes';
 import type { PhotoStorage } from './storage/photo-storage';
+import type { Transporter } from 'nodemailer';
+import { MailService } from './services/mail.service';
+import { outboxRoutes, sendPackRoutes } from './routes/mail.routes';
 
 /** Idle timeout: the cookie (and the row) expire 30 minutes after the last request. */
 export const SESSION_IDLE_MS = 30 * 60 * 1000;
@@ -54,6 +57,8 @@ export interface AppOptions {
   secret: string;
   /** Where photographs are kept (the data dir's uploads folder by default). */
   photoStorage: PhotoStorage;
+  /** SMTP transport (nodemailer) for outgoing mail, and how messages link back to the app. */
+  mail: { transport: Transporter; from: string; appUrl: string };
   /** Built Angular app (`dist/tidemark/browser`); null serves the API only. */
   clientDir?: string | null;
   /** Password hashing cost; tests lower it, production keeps OWASP's. */
@@ -90,10 +95,11 @@ export interface ClinicalServices {
   cycles: AuditCycleService;
   results: AuditResultsService;
   calibration: CalibrationService;
+  mail: MailService;
 }
 
 /** Wires the services on one data source. */
-export function createServices(dataSource: DataSource, photoStorage: PhotoStorage): ClinicalServices {
+export function createServices(dataSource: DataSource, photoStorage: PhotoStorage, mail: AppOptions['mail']): ClinicalServices {
   const operators = new OperatorDirectory(dataSource);
   const patients = new PatientService(dataSource);
   const cases = new CaseService(dataSource, operators, patients);
@@ -101,7 +107,9 @@ export function createServices(dataSource: DataSource, photoStorage: PhotoStorag
   const audits = new AuditService(dataSource, schedules, operators);
   const datasets = new AuditDatasetService(dataSource);
   const cycles = new AuditCycleService(dataSource, audits, schedules, datasets, operators);
+  const recalls = new RecallService(dataSource, operators, schedules);
   return {
+    mail: new MailService(dataSource, mail.transport, { from: mail.from, appUrl: mail.appUrl }, recalls),
     schedules,
     audits,
     datasets,
@@ -115,7 +123,7 @@ export function createServices(dataSource: DataSource, photoStorage: PhotoStorag
     visits: new VisitService(dataSource, cases, operators, schedules),
     complications: new ComplicationService(dataSource, cases),
     photos: new PhotoService(dataSource, cases, operators, photoStorage),
-    recalls: new RecallService(dataSource, operators, schedules),
+    recalls,
     history: new HistoryService(dataSource, operators),
   };
 }
@@ -137,7 +145,7 @@ export function createApp(options: AppOptions): TidemarkApp {
   const users = new UserService(options.dataSource, sessions, options.scryptCost ?? OWASP_SCRYPT_COST);
   const passport = createPassport(users);
   const csrf = createCsrfProtection(options.secret);
-  const services = createServices(options.dataSource, options.photoStorage);
+  const services = createServices(options.dataSource, options.photoStorage, options.mail);
 
   const app = express();
   app.disable('x-powered-by');
@@ -205,6 +213,8 @@ export function createApp(options: AppOptions): TidemarkApp {
   api.use('/cycles', parts.cycles);
   api.use('/actions', parts.actions);
   api.use('/calibration-readings', calibrationRoutes(services.calibration));
+  api.use('/audits', sendPackRoutes(services.mail));
+  api.use('/outbox', outboxRoutes(services.mail));
   api.use(apiNotFound);
   app.use('/api', api);
 

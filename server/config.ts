@@ -14,6 +14,12 @@ export interface ServerConfig {
   isDemo: boolean;
   logLevel: string;
   trustProxy?: string;
+  /** Outgoing mail; without SMTP_HOST the demo starts a local stand-in. */
+  smtp: { host: string | null; port: number; secure: boolean; user: string | null; password: string | null };
+  mailFrom: string;
+  /** Base address used in e-mail links. */
+  appUrl: string | null;
+  outboxDir: string;
 }
 
 const projectRoot = path.resolve(path.dirname(new URL(import.meta.url).pathname), '..');
@@ -28,7 +34,7 @@ function loadSecret(dataDir: string, fromEnv: string | undefined): string {
   return secret;
 }
 
-/** Builds the configuration from `process.env` (PORT, TIDEMARK_DATA_DIR, TIDEMARK_SECRET, TIDEMARK_DEMO, LOG_LEVEL, TRUST_PROXY). */
+/** Builds the configuration from `process.env` (PORT, TIDEMARK_DATA_DIR, TIDEMARK_SECRET, TIDEMARK_DEMO, LOG_LEVEL, TRUST_PROXY, SMTP_*, MAIL_FROM, APP_URL). */
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
   const dataDir = path.resolve(env.TIDEMARK_DATA_DIR ?? path.join(projectRoot, 'data'));
   mkdirSync(dataDir, { recursive: true });
@@ -44,5 +50,15 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     isDemo: (env.TIDEMARK_DEMO ?? 'on') !== 'off',
     logLevel: env.LOG_LEVEL ?? 'info',
     trustProxy: env.TRUST_PROXY,
+    smtp: {
+      host: env.SMTP_HOST ?? null,
+      port: Number(env.SMTP_PORT ?? 25),
+      secure: env.SMTP_SECURE === 'true',
+      user: env.SMTP_USER ?? null,
+      password: env.SMTP_PASSWORD ?? null,
+    },
+    mailFrom: env.MAIL_FROM ?? 'Tidemark <no-reply@example.org>',
+    appUrl: env.APP_URL ?? null,
+    outboxDir: path.join(dataDir, 'outbox'),
   };
 }

@@ -9,6 +9,7 @@ import { Audit } from './entities/audit.entity';
 import { CalibrationReading } from './entities/calibration-reading.entity';
 import { ChangeRecord } from './entities/change-record.entity';
 import { Complication } from './entities/complication.entity';
+import { MailMessage } from './entities/mail-message.entity';
 import { Patient } from './entities/patient.entity';
 import { Photo } from './entities/photo.entity';
 import { RecallSchedule } from './entities/recall-schedule.entity';
@@ -22,7 +23,7 @@ import { Visit } from './entities/visit.entity';
 import { migrations } from './migrations';
 
 /** Every entity the application maps. */
-export const entities = [User, SessionRow, Patient, SurgicalCase, Site, Visit, SiteMeasurement, Complication, Photo, ChangeRecord, RecallSchedule, Audit, AuditStandard, AuditCycle, ActionItem, ReviewNote, CalibrationReading];
+export const entities = [User, SessionRow, Patient, SurgicalCase, Site, Visit, SiteMeasurement, Complication, Photo, ChangeRecord, RecallSchedule, Audit, AuditStandard, AuditCycle, ActionItem, ReviewNote, CalibrationReading, MailMessage];
 
 /** Options for {@link createDataSource}. */
 export interface DataSourceOptions {

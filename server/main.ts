@@ -5,15 +5,33 @@ import { createApp } from './app';
 import { loadConfig } from './config';
 import { openDatabase } from './data-source';
 import { seedDemo } from './demo/seed-demo';
+import nodemailer from 'nodemailer';
+import { SmtpStandIn } from './mail/smtp-stand-in';
 
 /** Starts Tidemark: migrate, seed the demo on an empty database, serve app + API. */
 async function main(): Promise<void> {
   const config = loadConfig();
   const dataSource = await openDatabase({ database: config.databaseFile });
+  // Without a configured mail server the demo captures mail locally (data/outbox).
+  let standIn: SmtpStandIn | undefined;
+  let smtp = config.smtp;
+  if (!smtp.host && config.isDemo) {
+    standIn = new SmtpStandIn(config.outboxDir);
+    smtp = { ...smtp, host: '127.0.0.1', port: await standIn.start(0), secure: false };
+    console.log(`Mail goes to the local stand-in on port ${smtp.port}; captured messages are kept in ${config.outboxDir}.`);
+  }
+  const transport = nodemailer.createTransport({
+    host: smtp.host ?? '127.0.0.1',
+    port: smtp.port,
+    secure: smtp.secure,
+    ignoreTLS: !smtp.secure && Boolean(standIn),
+    auth: smtp.user ? { user: smtp.user, pass: smtp.password ?? '' } : undefined,
+  });
   const { app, sessions, users, services } = createApp({
     dataSource,
     secret: config.secret,
     photoStorage: new LocalPhotoStorage(config.uploadsDir),
+    mail: { transport, from: config.mailFrom, appUrl: config.appUrl ?? `http://localhost:${config.port}` },
     clientDir: config.clientDir,
     logLevel: config.logLevel,
     trustProxy: config.trustProxy,
@@ -24,6 +42,13 @@ async function main(): Promise<void> {
     console.log(`Demo practice: ${report.accounts} accounts, ${report.patients} patients, ${report.cases} cases, ${report.visits} recall visits, ${report.photos} photographs.`);
   }
   const stopPruning = sessions.startPruning();
+  // Digests, reminders and retries: every hour (and once shortly after start).
+  const runMail = (): void => {
+    services.mail.runSchedules().catch((error: unknown) => console.error('Mail schedule failed:', error));
+  };
+  const mailTimer = setInterval(runMail, 60 * 60 * 1000);
+  mailTimer.unref();
+  setTimeout(runMail, 5_000).unref();
   const server: Server = app.listen(config.port, () => {
     const address = server.address();
     const port = typeof address === 'object' && address ? address.port : config.port;
@@ -31,6 +56,8 @@ async function main(): Promise<void> {
   });
   const shutdown = (): void => {
     stopPruning();
+    clearInterval(mailTimer);
+    void standIn?.stop();
     server.close(() => {
       dataSource.destroy().finally(() => process.exit(0));
     });

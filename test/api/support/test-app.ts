@@ -8,6 +8,7 @@ import type { DataSource } from 'typeorm';
 import type { Role } from '@tidemark/shared';
 import { createApp, type TidemarkApp } from '../../../server/app';
 import { openDatabase } from '../../../server/data-source';
+import nodemailer, { type Transporter } from 'nodemailer';
 import { LocalPhotoStorage } from '../../../server/storage/photo-storage';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../../server/demo/demo-accounts';
 import type { LoginLimits } from '../../../server/routes/auth.routes';
@@ -23,7 +24,7 @@ export interface TestApp extends TidemarkApp {
 }
 
 /** Builds the app on a fresh temporary SQLite database with the demo accounts. */
-export async function createTestApp(options: { loginLimits?: LoginLimits; trustProxy?: boolean } = {}): Promise<TestApp> {
+export async function createTestApp(options: { loginLimits?: LoginLimits; trustProxy?: boolean; mailTransport?: Transporter } = {}): Promise<TestApp> {
   const dataDir = mkdtempSync(path.join(tmpdir(), 'tidemark-test-'));
   const dataSource = await openDatabase({ database: path.join(dataDir, 'tidemark.sqlite') });
   const built = createApp({
@@ -31,6 +32,8 @@ export async function createTestApp(options: { loginLimits?: LoginLimits; trustP
     secret: 'test-secret-that-is-long-enough-for-hmac-0123456789',
     clientDir: null,
     photoStorage: new LocalPhotoStorage(path.join(dataDir, 'uploads')),
+    // No network by default: nodemailer's JSON transport; mail tests pass the SMTP stand-in.
+    mail: { transport: options.mailTransport ?? nodemailer.createTransport({ jsonTransport: true }), from: 'Tidemark <no-reply@example.org>', appUrl: 'http://localhost:3000' },
     scryptCost: TEST_SCRYPT_COST,
     loginLimits: options.loginLimits ?? { perAccount: 1000, perAddress: 1000, windowMs: 60_000 },
     logLevel: 'silent',
