@@ -13,7 +13,7 @@ import { Site } from '../entities/site.entity';
 import { SurgicalCase } from '../entities/surgical-case.entity';
 import { Visit } from '../entities/visit.entity';
 import { HttpError } from '../http-error';
-import { appendChanges, diffFields } from './change-log';
+import { appendChanges, changedValues, diffFields } from './change-log';
 import { clinicalAccess } from './clinical-access';
 import { asBoolean, mapChangeRecord, mapComplication, mapMeasurement, mapPatient, mapPhoto, mapSite, mapVisit } from './clinical-mappers';
 import type { OperatorDirectory } from './operator-directory';
@@ -243,7 +243,7 @@ export class CaseService {
         }
       }
       const changes = diffFields(current, change);
-      await updateWithVersion(manager, SurgicalCase, id, version, Object.fromEntries(changes.map((entry) => [entry.field, entry.newValue])));
+      await updateWithVersion(manager, SurgicalCase, id, version, changedValues(changes));
       await appendChanges(manager, { entity: 'case', entityId: id, caseId: id, userId: user.id, reason }, changes);
     });
     return this.get(user, id);

@@ -35,6 +35,11 @@ export function diffFields<T extends object>(current: T, change: Partial<T>): Fi
   return changes;
 }
 
+/** The new values of a diff as a column → value map, for the UPDATE. */
+export function changedValues(changes: readonly FieldChange[]): Record<string, unknown> {
+  return Object.fromEntries(changes.map((entry) => [entry.field, entry.newValue]));
+}
+
 /** Appends change records in the caller's transaction, so history and change commit together. */
 export async function appendChanges(manager: EntityManager, context: ChangeContext, changes: FieldChange[]): Promise<void> {
   if (changes.length === 0) return;

@@ -5,7 +5,7 @@ import { complicationCreateSchema, complicationUpdateSchema } from '@tidemark/sh
 import { Complication } from '../entities/complication.entity';
 import { Visit } from '../entities/visit.entity';
 import { HttpError } from '../http-error';
-import { appendChanges, diffFields } from './change-log';
+import { appendChanges, changedValues, diffFields } from './change-log';
 import type { CaseService } from './case.service';
 import { clinicalAccess } from './clinical-access';
 import { mapComplication } from './clinical-mappers';
@@ -51,7 +51,7 @@ export class ComplicationService {
         throw HttpError.badRequest('Resolution cannot come before onset.', { resolutionDate: 'Resolution cannot come before onset.' });
       }
       const changes = diffFields(current, change);
-      await updateWithVersion(manager, Complication, id, version, Object.fromEntries(changes.map((entry) => [entry.field, entry.newValue])));
+      await updateWithVersion(manager, Complication, id, version, changedValues(changes));
       await appendChanges(manager, { entity: 'complication', entityId: id, caseId: current.caseId, userId: user.id, reason }, changes);
       return mapComplication(await manager.getRepository(Complication).findOneByOrFail({ id }));
     });

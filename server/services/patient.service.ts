@@ -5,7 +5,7 @@ import { patientCreateSchema, patientUpdateSchema } from '@tidemark/shared';
 import { Patient } from '../entities/patient.entity';
 import { SurgicalCase } from '../entities/surgical-case.entity';
 import { HttpError } from '../http-error';
-import { appendChanges, diffFields } from './change-log';
+import { appendChanges, changedValues, diffFields } from './change-log';
 import { clinicalAccess } from './clinical-access';
 import { mapPatient } from './clinical-mappers';
 import { updateWithVersion } from './versioned-update';
@@ -73,7 +73,7 @@ export class PatientService {
         throw HttpError.badRequest('Check smoking details.', { cigarettesPerDay: 'Give cigarettes a day for a current smoker, and only then.' });
       }
       const changes = diffFields(current, change);
-      await updateWithVersion(manager, Patient, id, version, Object.fromEntries(changes.map((entry) => [entry.field, entry.newValue])));
+      await updateWithVersion(manager, Patient, id, version, changedValues(changes));
       await appendChanges(manager, { entity: 'patient', entityId: id, caseId: null, userId: user.id, reason }, changes);
     });
     return this.get(user, id);

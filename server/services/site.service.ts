@@ -4,7 +4,7 @@ import type { SiteView } from '@tidemark/shared';
 import { siteCreateSchema, siteUpdateSchema } from '@tidemark/shared';
 import { Site } from '../entities/site.entity';
 import { HttpError } from '../http-error';
-import { appendChanges, diffFields } from './change-log';
+import { appendChanges, changedValues, diffFields } from './change-log';
 import { clinicalAccess } from './clinical-access';
 import { mapSite } from './clinical-mappers';
 import type { CaseService } from './case.service';
@@ -54,7 +54,7 @@ export class SiteService {
       if (isCorrection && !reason) {
         throw HttpError.badRequest('Say why a recorded value changes.', { reason: 'A reason is required to change a recorded measurement.' });
       }
-      await updateWithVersion(manager, Site, siteId, version, Object.fromEntries(changes.map((entry) => [entry.field, entry.newValue])));
+      await updateWithVersion(manager, Site, siteId, version, changedValues(changes));
       await appendChanges(manager, { entity: 'site', entityId: siteId, caseId: current.caseId, userId: user.id, reason: reason ?? null }, changes);
       return mapSite(await manager.getRepository(Site).findOneByOrFail({ id: siteId }));
     });

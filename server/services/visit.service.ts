@@ -9,7 +9,7 @@ import type { SurgicalCase } from '../entities/surgical-case.entity';
 import { SurgicalCase as SurgicalCaseEntity } from '../entities/surgical-case.entity';
 import { Visit } from '../entities/visit.entity';
 import { HttpError } from '../http-error';
-import { appendChanges, diffFields, type FieldChange } from './change-log';
+import { appendChanges, changedValues, diffFields, type FieldChange } from './change-log';
 import type { CaseService } from './case.service';
 import { clinicalAccess } from './clinical-access';
 import type { OperatorDirectory } from './operator-directory';
@@ -98,7 +98,7 @@ export class VisitService {
         changedMeasurements = await this.applyMeasurements(manager, visitId, measurements, { ...context, entity: 'site_measurement' });
       }
       // The visit's version guards its measurements too: two people correcting one visit cannot both win.
-      await updateWithVersion(manager, Visit, visitId, version, Object.fromEntries(changes.map((entry) => [entry.field, entry.newValue])), {
+      await updateWithVersion(manager, Visit, visitId, version, changedValues(changes), {
         isTouched: changedMeasurements > 0,
       });
       await appendChanges(manager, context, changes);
@@ -138,7 +138,7 @@ export class VisitService {
       const { siteId: _siteId, ...values } = measurement;
       const changes: FieldChange[] = diffFields(current, values);
       if (changes.length === 0) continue;
-      await manager.getRepository(SiteMeasurement).update({ id: current.id }, Object.fromEntries(changes.map((entry) => [entry.field, entry.newValue])));
+      await manager.getRepository(SiteMeasurement).update({ id: current.id }, changedValues(changes));
       await appendChanges(manager, { ...context, entityId: current.id }, changes);
       changed++;
     }
