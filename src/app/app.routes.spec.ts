@@ -35,9 +35,9 @@ describe('app routes', () => {
   });
 
   it('shows an honest placeholder with the release that brings the page', async () => {
-    const page = await open(personWithRole('partner'), '/reports');
-    expect(page.url).toBe('/reports');
-    expect(page.text).toContain('Arrives with the governance pack release.');
+    const page = await open(personWithRole('admin'), '/settings');
+    expect(page.url).toBe('/settings');
+    expect(page.text).toContain('Arrives with a later release.');
   });
 
   it('sends unknown addresses home', async () => {

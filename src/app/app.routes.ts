@@ -19,9 +19,6 @@ function comingSoon(path: string, data: ComingSoonData): Route {
   };
 }
 
-const AUDITS_RELEASE = 'Arrives with the audits release.';
-const GOVERNANCE_PACK_RELEASE = 'Arrives with the governance pack release.';
-
 /** Top-level routes. Every page is lazy so the first download stays small. */
 export const routes: Routes = [
   {
@@ -64,22 +61,30 @@ export const routes: Routes = [
         loadChildren: () => import('./features/recall-entry/recall-entry.routes').then((m) => m.RECALL_ENTRY_ROUTES),
       },
       {
+        // Importing past cases from a spreadsheet (audit lead); before 'cases' so ':id' never takes "import".
+        path: 'cases/import',
+        title: 'Import past cases',
+        canActivate: [roleGuard('audit_lead')],
+        loadChildren: () => import('./features/case-import/case-import.routes').then((m) => m.CASE_IMPORT_ROUTES),
+      },
+      {
         path: 'cases',
         title: 'Cases',
         canActivate: [roleGuard(...rolesFor('/cases'))],
         loadChildren: () => import('./features/cases/cases.routes').then((m) => m.CASES_ROUTES),
       },
-      comingSoon('audits', {
-        heading: 'Audits',
-        purpose:
-          "Audits will hold each audit's scope, standards, results and cycles, with the action plan agreed after each cycle.",
-        release: AUDITS_RELEASE,
-      }),
-      comingSoon('reports', {
-        heading: 'Reports',
-        purpose: 'Reports will build the de-identified governance workbook and send it to the committee by e-mail.',
-        release: GOVERNANCE_PACK_RELEASE,
-      }),
+      {
+        path: 'audits',
+        title: 'Audits',
+        canActivate: [roleGuard(...rolesFor('/audits'))],
+        loadChildren: () => import('./features/audits/audits.routes').then((m) => m.AUDITS_ROUTES),
+      },
+      {
+        path: 'reports',
+        title: 'Reports',
+        canActivate: [roleGuard(...rolesFor('/reports'))],
+        loadChildren: () => import('./features/reports/reports.routes').then((m) => m.REPORTS_ROUTES),
+      },
       {
         path: 'history',
         title: 'Change history',
@@ -92,11 +97,12 @@ export const routes: Routes = [
         canActivate: [roleGuard(...rolesFor('/team'))],
         loadChildren: () => import('./features/team/team.routes').then((m) => m.TEAM_ROUTES),
       },
-      comingSoon('outbox', {
-        heading: 'Outbox',
-        purpose: 'Outbox will list the e-mails Tidemark has sent or queued, so you can check what reached the committee.',
-        release: GOVERNANCE_PACK_RELEASE,
-      }),
+      {
+        path: 'outbox',
+        title: 'Outbox',
+        canActivate: [roleGuard(...rolesFor('/outbox'))],
+        loadChildren: () => import('./features/outbox/outbox.routes').then((m) => m.OUTBOX_ROUTES),
+      },
       comingSoon('settings', {
         heading: 'Settings',
         purpose: 'Settings will hold the practice-wide defaults new audits start from, such as the recall schedule and stability thresholds.',

@@ -1,0 +1,191 @@
+import { HarnessLoader } from '@angular/cdk/testing';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, TestRequest, provideHttpClientTesting } from '@angular/common/http/testing';
+import { Component } from '@angular/core';
+import { DeferBlockBehavior, TestBed } from '@angular/core/testing';
+import { MatChipOptionHarness } from '@angular/material/chips/testing';
+import { MatSelectHarness } from '@angular/material/select/testing';
+import { Router, provideRouter } from '@angular/router';
+import { RouterTestingHarness } from '@angular/router/testing';
+import type { CycleView } from '@tidemark/shared';
+import { auditResults, calibrationResult, funnelResult, survivalResult, trendResult } from '../testing/results-fixtures';
+import { ResultsBoard } from './results-board';
+
+const CYCLES: CycleView[] = [
+  {
+    id: 4,
+    auditId: 1,
+    number: 1,
+    periodStart: '2029-01-01',
+    periodEnd: '2029-12-31',
+    state: 'reported',
+    frozenAt: '2030-01-02T09:00:00.000Z',
+    presentedDate: null,
+    notes: '',
+    version: 3,
+    actions: [],
+  },
+];
+
+/** Stands in for the audit page, which embeds the board exactly like this. */
+@Component({
+  imports: [ResultsBoard],
+  template: `<tm-results-board [auditId]="1" [cycles]="cycles" />`,
+})
+class AuditPageStandIn {
+  readonly cycles = CYCLES;
+}
+
+describe('ResultsBoard', () => {
+  let harness: RouterTestingHarness;
+  let loader: HarnessLoader;
+  let http: HttpTestingController;
+  let router: Router;
+
+  async function open(url: string): Promise<TestRequest[]> {
+    TestBed.configureTestingModule({
+      // The charts live in a deferred block with their own specs; here the filters and requests matter.
+      deferBlockBehavior: DeferBlockBehavior.Manual,
+      providers: [provideRouter([{ path: 'audits/:id', component: AuditPageStandIn }]), provideHttpClient(), provideHttpClientTesting()],
+    });
+    http = TestBed.inject(HttpTestingController);
+    router = TestBed.inject(Router);
+    harness = await RouterTestingHarness.create();
+    await harness.navigateByUrl(url);
+    loader = TestbedHarnessEnvironment.loader(harness.fixture);
+    return answerAll();
+  }
+
+  /** Answers every open request the way the server would for its parameters, until none is left. */
+  async function answerAll(): Promise<TestRequest[]> {
+    const answered: TestRequest[] = [];
+    for (let round = 0; round < 5; round++) {
+      await settle();
+      const open = http.match(() => true);
+      if (open.length === 0) break;
+      for (const request of open) {
+        answer(request);
+        answered.push(request);
+      }
+    }
+    await settle();
+    return answered;
+  }
+
+  function answer(request: TestRequest): void {
+    const params = request.request.params;
+    const cycleId = params.has('cycleId') ? Number(params.get('cycleId')) : null;
+    const view = request.request.url.split('/').at(-1);
+    if (view === 'results') {
+      const frozenAt = cycleId === 4 ? CYCLES[0].frozenAt : null;
+      request.flush(auditResults({ cycleId, frozenAt }));
+    } else if (view === 'funnel') request.flush(funnelResult());
+    else if (view === 'trend') request.flush(trendResult());
+    else if (view === 'survival') request.flush(survivalResult());
+    else request.flush(calibrationResult());
+  }
+
+  async function settle(): Promise<void> {
+    await harness.fixture.whenStable();
+    await harness.fixture.whenStable();
+  }
+
+  function paramsOf(requests: TestRequest[], view: string): Record<string, string | null> | undefined {
+    const request = requests.filter((candidate) => candidate.request.url === `/api/audits/1/${view}`).at(-1);
+    if (!request) return undefined;
+    const params = request.request.params;
+    return Object.fromEntries(params.keys().map((key) => [key, params.get(key)]));
+  }
+
+  async function selectedChips(): Promise<string[]> {
+    const chips = await loader.getAllHarnesses(MatChipOptionHarness.with({ selected: true }));
+    return Promise.all(chips.map((chip) => chip.getText()));
+  }
+
+  async function pickChip(text: string): Promise<TestRequest[]> {
+    const chip = await loader.getHarness(MatChipOptionHarness.with({ text }));
+    await chip.select();
+    return answerAll();
+  }
+
+  function pageText(): string {
+    return harness.routeNativeElement?.textContent?.replace(/\s+/g, ' ') ?? '';
+  }
+
+  afterEach(() => http.verify());
+
+  it('reads group, interval, measure and cycle from the address and asks every endpoint for exactly that', async () => {
+    const requests = await open('/audits/1?area=results&groupBy=operator&interval=12m&measure=relapse&cycle=4');
+
+    expect(paramsOf(requests, 'results')).toEqual({ cycleId: '4', groupBy: 'operator' });
+    expect(paramsOf(requests, 'funnel')).toEqual({ cycleId: '4', measure: 'relapse', intervalKey: '12m' });
+    expect(paramsOf(requests, 'trend')).toEqual({ cycleId: '4', intervalKey: '12m' });
+    expect(paramsOf(requests, 'survival')).toEqual({ cycleId: '4' });
+    expect(paramsOf(requests, 'calibration')).toEqual({ cycleId: '4' });
+    expect(await selectedChips()).toEqual(['Operator', '12 months', 'Relapse']);
+    const scope = await loader.getHarness(MatSelectHarness);
+    expect(await scope.getValueText()).toContain('Cycle 1');
+    expect(pageText()).toContain('Frozen on 2 Jan 2030');
+  });
+
+  it('writes each chosen chip to the address, keeps other parameters, and reloads what depends on it', async () => {
+    await open('/audits/1?area=results');
+    expect(await selectedChips()).toEqual(['Whole cohort', '6 months', 'Complications']);
+    expect(pageText()).toContain('Live: recomputed');
+
+    let requests = await pickChip('Phenotype');
+    expect(router.url).toBe('/audits/1?area=results&groupBy=phenotype');
+    expect(paramsOf(requests, 'results')).toEqual({ groupBy: 'phenotype' });
+    // Grouping changes neither the interval nor the scope: the funnel and trend are not asked again.
+    expect(paramsOf(requests, 'trend')).toBeUndefined();
+
+    requests = await pickChip('12 months');
+    expect(router.url).toBe('/audits/1?area=results&groupBy=phenotype&interval=12m');
+    expect(paramsOf(requests, 'trend')).toEqual({ intervalKey: '12m' });
+    expect(paramsOf(requests, 'funnel')).toEqual({ measure: 'complication', intervalKey: '12m' });
+
+    requests = await pickChip('Relapse');
+    expect(router.url).toBe('/audits/1?area=results&groupBy=phenotype&interval=12m&measure=relapse');
+    expect(paramsOf(requests, 'funnel')).toEqual({ measure: 'relapse', intervalKey: '12m' });
+
+    requests = await pickChip('Whole cohort');
+    expect(router.url).toBe('/audits/1?area=results&interval=12m&measure=relapse');
+    expect(paramsOf(requests, 'results')).toEqual({});
+    expect(await selectedChips()).toEqual(['Whole cohort', '12 months', 'Relapse']);
+  });
+
+  it('keeps a chosen chip chosen when it is clicked again', async () => {
+    await open('/audits/1?area=results&groupBy=smoking');
+    const chip = await loader.getHarness(MatChipOptionHarness.with({ text: 'Smoking' }));
+    await chip.toggle();
+    await answerAll();
+    expect(await chip.isSelected()).toBe(true);
+    expect(router.url).toBe('/audits/1?area=results&groupBy=smoking');
+  });
+
+  it('switches between live results and a cycle through the address', async () => {
+    await open('/audits/1?area=results&interval=12m');
+    const scope = await loader.getHarness(MatSelectHarness);
+    await scope.open();
+    await scope.clickOptions({ text: /Cycle 1/ });
+    const requests = await answerAll();
+    expect(router.url).toBe('/audits/1?area=results&interval=12m&cycle=4');
+    expect(paramsOf(requests, 'results')).toEqual({ cycleId: '4' });
+    expect(paramsOf(requests, 'survival')).toEqual({ cycleId: '4' });
+    expect(pageText()).toContain('Frozen on 2 Jan 2030');
+
+    await scope.open();
+    await scope.clickOptions({ text: /Live/ });
+    await answerAll();
+    expect(router.url).toBe('/audits/1?area=results&interval=12m');
+    expect(pageText()).not.toContain('Frozen on');
+  });
+
+  it('falls back to the default interval when the address names one the schedule lacks, and ignores a foreign cycle', async () => {
+    const requests = await open('/audits/1?interval=9m&cycle=99');
+    expect(paramsOf(requests, 'results')).toEqual({});
+    expect(paramsOf(requests, 'trend')).toEqual({ intervalKey: '6m' });
+    expect(await selectedChips()).toEqual(['Whole cohort', '6 months', 'Complications']);
+  });
+});
