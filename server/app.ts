@@ -44,6 +44,11 @@ import type { PhotoStorage } from './storage/photo-storage';
 import type { Transporter } from 'nodemailer';
 import { MailService } from './services/mail.service';
 import { outboxRoutes, sendPackRoutes } from './routes/mail.routes';
+import { GovernanceExportService } from './export/governance-export.service';
+import { GovernancePackService } from './export/governance-pack.service';
+import { auditExportRoutes, exportRoutes } from './routes/exports.routes';
+import { ImportService } from './import/import.service';
+import { importRoutes } from './routes/imports.routes';
 
 /** Idle timeout: the cookie (and the row) expire 30 minutes after the last request. */
 export const SESSION_IDLE_MS = 30 * 60 * 1000;
@@ -57,6 +62,8 @@ export interface AppOptions {
   secret: string;
   /** Where photographs are kept (the data dir's uploads folder by default). */
   photoStorage: PhotoStorage;
+  /** Where governance workbooks wait for download (`<dataDir>/exports`; kept one hour). */
+  exportsDir: string;
   /** SMTP transport (nodemailer) for outgoing mail, and how messages link back to the app. */
   mail: { transport: Transporter; from: string; appUrl: string };
   /** Built Angular app (`dist/tidemark/browser`); null serves the API only. */
@@ -76,6 +83,10 @@ export interface TidemarkApp {
   sessions: DatabaseSessionStore;
   users: UserService;
   services: ClinicalServices;
+  /** Governance workbook jobs. */
+  exports: GovernanceExportService;
+  /** Historical import jobs. */
+  imports: ImportService;
 }
 
 /** The clinical-record services, built once per app. */
@@ -146,6 +157,8 @@ export function createApp(options: AppOptions): TidemarkApp {
   const passport = createPassport(users);
   const csrf = createCsrfProtection(options.secret);
   const services = createServices(options.dataSource, options.photoStorage, options.mail);
+  const exports = new GovernanceExportService(new GovernancePackService(options.dataSource, services.audits, services.cycles, services.operators), { exportsDir: options.exportsDir });
+  const imports = new ImportService(options.dataSource, services.schedules);
 
   const app = express();
   app.disable('x-powered-by');
@@ -214,6 +227,9 @@ export function createApp(options: AppOptions): TidemarkApp {
   api.use('/actions', parts.actions);
   api.use('/calibration-readings', calibrationRoutes(services.calibration));
   api.use('/audits', sendPackRoutes(services.mail));
+  api.use('/audits', auditExportRoutes(exports));
+  api.use('/exports', exportRoutes(exports));
+  api.use('/imports', importRoutes(imports));
   api.use('/outbox', outboxRoutes(services.mail));
   api.use(apiNotFound);
   app.use('/api', api);
@@ -230,5 +246,5 @@ export function createApp(options: AppOptions): TidemarkApp {
   }
 
   app.use(errorHandler);
-  return { app, sessions, users, services };
+  return { app, sessions, users, services, exports, imports };
 }

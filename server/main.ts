@@ -1,5 +1,6 @@
 import 'reflect-metadata';
 import type { Server } from 'node:http';
+import path from 'node:path';
 import { LocalPhotoStorage } from './storage/photo-storage';
 import { createApp } from './app';
 import { loadConfig } from './config';
@@ -27,10 +28,11 @@ async function main(): Promise<void> {
     ignoreTLS: !smtp.secure && Boolean(standIn),
     auth: smtp.user ? { user: smtp.user, pass: smtp.password ?? '' } : undefined,
   });
-  const { app, sessions, users, services } = createApp({
+  const { app, sessions, users, services, exports, imports } = createApp({
     dataSource,
     secret: config.secret,
     photoStorage: new LocalPhotoStorage(config.uploadsDir),
+    exportsDir: path.join(config.dataDir, 'exports'),
     mail: { transport, from: config.mailFrom, appUrl: config.appUrl ?? `http://localhost:${config.port}` },
     clientDir: config.clientDir,
     logLevel: config.logLevel,
@@ -42,6 +44,7 @@ async function main(): Promise<void> {
     console.log(`Demo practice: ${report.accounts} accounts, ${report.patients} patients, ${report.cases} cases, ${report.visits} recall visits, ${report.photos} photographs.`);
   }
   const stopPruning = sessions.startPruning();
+  const stopSweepingJobs = [exports.jobs.startSweeping(), imports.jobs.startSweeping()];
   // Digests, reminders and retries: every hour (and once shortly after start).
   const runMail = (): void => {
     services.mail.runSchedules().catch((error: unknown) => console.error('Mail schedule failed:', error));
@@ -56,6 +59,7 @@ async function main(): Promise<void> {
   });
   const shutdown = (): void => {
     stopPruning();
+    for (const stop of stopSweepingJobs) stop();
     clearInterval(mailTimer);
     void standIn?.stop();
     server.close(() => {

@@ -21,3 +21,4 @@ export * from './schemas/schedule';
 export * from './schemas/audit';
 export * from './schemas/standard';
 export * from './schemas/audit-cycle';
+export * from './schemas/import-row';

@@ -1,5 +1,6 @@
 /** `npm run seed:demo`: migrates and seeds the demo accounts into the configured data dir (idempotent). */
 import 'reflect-metadata';
+import path from 'node:path';
 import nodemailer from 'nodemailer';
 import { LocalPhotoStorage } from '../storage/photo-storage';
 import { createApp } from '../app';
@@ -9,7 +10,7 @@ import { seedDemo } from '../demo/seed-demo';
 
 const config = loadConfig();
 const dataSource = await openDatabase({ database: config.databaseFile });
-const { users, services } = createApp({ dataSource, secret: config.secret, photoStorage: new LocalPhotoStorage(config.uploadsDir), mail: { transport: nodemailer.createTransport({ jsonTransport: true }), from: config.mailFrom, appUrl: 'http://localhost' }, clientDir: null, logLevel: 'silent' });
+const { users, services } = createApp({ dataSource, secret: config.secret, photoStorage: new LocalPhotoStorage(config.uploadsDir), exportsDir: path.join(config.dataDir, 'exports'), mail: { transport: nodemailer.createTransport({ jsonTransport: true }), from: config.mailFrom, appUrl: 'http://localhost' }, clientDir: null, logLevel: 'silent' });
 const report = await seedDemo(dataSource, users, services);
 console.log(`Demo data ready in ${config.databaseFile}:`, report);
 await dataSource.destroy();

@@ -32,6 +32,7 @@ export async function createTestApp(options: { loginLimits?: LoginLimits; trustP
     secret: 'test-secret-that-is-long-enough-for-hmac-0123456789',
     clientDir: null,
     photoStorage: new LocalPhotoStorage(path.join(dataDir, 'uploads')),
+    exportsDir: path.join(dataDir, 'exports'),
     // No network by default: nodemailer's JSON transport; mail tests pass the SMTP stand-in.
     mail: { transport: options.mailTransport ?? nodemailer.createTransport({ jsonTransport: true }), from: 'Tidemark <no-reply@example.org>', appUrl: 'http://localhost:3000' },
     scryptCost: TEST_SCRYPT_COST,
