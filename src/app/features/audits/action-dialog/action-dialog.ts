@@ -83,37 +83,7 @@ const fields = actionItemCreateSchema.shape;
       </mat-dialog-actions>
     </form>
   `,
-  styles: `
-    .fields {
-      display: flex;
-      flex-direction: column;
-      gap: 16px;
-      min-width: min(480px, 80vw);
-    }
-    mat-form-field {
-      width: 100%;
-    }
-    .pair {
-      display: flex;
-      flex-wrap: wrap;
-      gap: 16px;
-    }
-    .pair mat-form-field {
-      flex: 1 1 180px;
-    }
-    .failure {
-      display: flex;
-      gap: 8px;
-      color: var(--mat-sys-error);
-    }
-    .failure:empty {
-      display: none;
-    }
-    mat-dialog-actions {
-      padding: 8px 24px 20px;
-      gap: 8px;
-    }
-  `,
+  styleUrl: '../audit-dialog-form.scss',
 })
 export class ActionDialog {
   private readonly api = inject(AuditsApi);

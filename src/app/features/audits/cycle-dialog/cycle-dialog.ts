@@ -88,39 +88,11 @@ const fields = cycleCreateSchema.shape;
       </mat-dialog-actions>
     </form>
   `,
+  styleUrl: '../audit-dialog-form.scss',
   styles: `
-    .fields {
-      display: flex;
-      flex-direction: column;
-      gap: 16px;
-      min-width: min(480px, 80vw);
-    }
     .hint {
       margin: 0;
       color: var(--mat-sys-on-surface-variant);
-    }
-    mat-form-field {
-      width: 100%;
-    }
-    .pair {
-      display: flex;
-      flex-wrap: wrap;
-      gap: 16px;
-    }
-    .pair mat-form-field {
-      flex: 1 1 180px;
-    }
-    .failure {
-      display: flex;
-      gap: 8px;
-      color: var(--mat-sys-error);
-    }
-    .failure:empty {
-      display: none;
-    }
-    mat-dialog-actions {
-      padding: 8px 24px 20px;
-      gap: 8px;
     }
   `,
 })
