@@ -6,6 +6,8 @@ declare module 'express-session' {
     signedInAt?: number;
     /** Set when a CSRF token is issued, so an anonymous session is kept and the token stays bound. */
     csrfIssuedAt?: number;
+    /** `enabledAt` (epoch ms) of the one-time-code set-up whose code was checked in this session. */
+    secondFactorVerifiedFor?: number;
     passport?: { user?: number };
   }
 }

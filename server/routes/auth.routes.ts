@@ -1,11 +1,13 @@
 import { Router, type NextFunction, type Request, type Response } from 'express';
 import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
-import { loginSchema, type SessionResponse } from '@tidemark/shared';
+import { loginSchema, type SessionResponse, type SignInOptions } from '@tidemark/shared';
 import type { CsrfProtection } from '../auth/csrf';
 import { SIGN_IN_FAILED_MESSAGE, type PassportInstance } from '../auth/passport-setup';
 import { HttpError } from '../http-error';
 import { requireAuth } from '../middleware/require-role';
 import { validateBody } from '../middleware/validate';
+import type { SecondFactorService } from '../services/second-factor.service';
+import { sessionUser } from './session-user';
 
 /** Limits on failed sign-ins. */
 export interface LoginLimits {
@@ -32,8 +34,8 @@ function emailKey(req: Request): string {
   return typeof email === 'string' ? email.trim().toLowerCase().slice(0, 254) : '';
 }
 
-/** Sign-in, sign-out and the current session. */
-export function authRoutes(passport: PassportInstance, csrf: CsrfProtection, limits: LoginLimits): Router {
+/** Sign-in (password step), sign-out, the current session and what the sign-in page must know. */
+export function authRoutes(passport: PassportInstance, csrf: CsrfProtection, limits: LoginLimits, secondFactors: SecondFactorService): Router {
   const router = Router();
   const common = { windowMs: limits.windowMs, standardHeaders: 'draft-7' as const, legacyHeaders: false, skipSuccessfulRequests: true };
   const perAddress = rateLimit({ ...common, limit: limits.perAddress, keyGenerator: (req) => ipKeyGenerator(req.ip ?? ''), handler: tooManyAttempts(limits.windowMs) });
@@ -53,15 +55,26 @@ export function authRoutes(passport: PassportInstance, csrf: CsrfProtection, lim
         if (loginError) return next(loginError);
         req.session.signedInAt = Date.now();
         csrf.reissue(req, res);
-        const body: SessionResponse = { user };
-        res.json(body);
+        // With one-time codes on, the session is only "password checked" until the code comes (second-factor.routes.ts).
+        secondFactors
+          .stateFor(user, undefined)
+          .then((secondFactor) => {
+            const body: SessionResponse = { user: sessionUser(user), secondFactor };
+            res.json(body);
+          })
+          .catch(next);
       });
     })(req, res, next);
   });
 
-  router.get('/me', requireAuth, (req, res) => {
+  router.get('/me', requireAuth, async (req, res) => {
     const user = req.user as Express.User;
-    const body: SessionResponse = { user: { id: user.id, email: user.email, displayName: user.displayName, role: user.role } };
+    const body: SessionResponse = { user: sessionUser(user), secondFactor: await secondFactors.stateFor(user, req.session.secondFactorVerifiedFor) };
+    res.json(body);
+  });
+
+  router.get('/sign-in-options', (_req, res) => {
+    const body: SignInOptions = { secondFactorPolicy: secondFactors.policy };
     res.json(body);
   });
 

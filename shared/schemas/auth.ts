@@ -1,5 +1,6 @@
 import * as z from 'zod';
 import { ROLES } from '../types/role';
+import type { SecondFactorState } from '../types/second-factor';
 
 /** Sign-in request body. Length caps stop oversized input before any hashing. */
 export const loginSchema = z.object({
@@ -17,7 +18,9 @@ export const sessionUserSchema = z.object({
 });
 export type SessionUser = z.infer<typeof sessionUserSchema>;
 
-/** Response of `POST /api/auth/login` and `GET /api/auth/me`. */
+/** Response of `POST /api/auth/login`, `GET /api/auth/me` and the second-factor steps. */
 export interface SessionResponse {
   user: SessionUser;
+  /** Where the session stands with the second factor; only `none` and `verified` open the app. */
+  secondFactor: SecondFactorState;
 }

@@ -2,6 +2,12 @@
 export type ApiErrorCode =
   | 'validation'
   | 'unauthenticated'
+  /** Password accepted; a one-time or recovery code is still due (401). */
+  | 'second_factor_pending'
+  /** The role must set up one-time codes before anything else (403). */
+  | 'second_factor_enrolment_required'
+  /** The one-time or recovery code was wrong, used already, or expired (401). */
+  | 'second_factor_invalid'
   | 'forbidden'
   | 'csrf'
   | 'not_found'

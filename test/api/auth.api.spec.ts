@@ -17,7 +17,7 @@ describe('sign-in, sessions and CSRF', () => {
     const client = new ApiClient(t.app);
     const login = await client.signIn('Lead@Example.org');
     expect(login.status).toBe(200);
-    expect(login.body).toEqual({ user: { id: expect.any(Number), email: 'lead@example.org', displayName: expect.any(String), role: 'audit_lead' } });
+    expect(login.body).toEqual({ user: { id: expect.any(Number), email: 'lead@example.org', displayName: expect.any(String), role: 'audit_lead' }, secondFactor: 'none' });
     const me = await client.get('/api/auth/me');
     expect(me.status).toBe(200);
     expect(me.body).toEqual(login.body);

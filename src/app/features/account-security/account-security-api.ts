@@ -1,0 +1,48 @@
+import { HttpClient } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import type {
+  EnrolmentConfirmation,
+  OneTimeCodeRequest,
+  RecoveryCodesResponse,
+  SecondFactorEnrolment,
+  SecondFactorStatus,
+  SessionResponse,
+} from '@tidemark/shared';
+import { Observable } from 'rxjs';
+import { showsOwnErrors } from '../../core/http/shows-own-errors';
+
+const BASE = '/api/auth/second-factor';
+
+/**
+ * HTTP calls of the Sign-in protection page: the signed-in person's own one-time codes.
+ * The calls that take a code show their errors beside the code field.
+ */
+@Injectable({ providedIn: 'root' })
+export class AccountSecurityApi {
+  private readonly http = inject(HttpClient);
+
+  /** Whether codes are on, how many recovery codes are left, whether the role must use them. */
+  status(): Observable<SecondFactorStatus> {
+    return this.http.get<SecondFactorStatus>(BASE);
+  }
+
+  /** A new secret with its QR code; it works once confirmed. */
+  startEnrolment(): Observable<SecondFactorEnrolment> {
+    return this.http.post<SecondFactorEnrolment>(`${BASE}/enrolment`, null);
+  }
+
+  /** Switches codes on with a code from the new secret; answers the recovery codes (shown once). */
+  confirmEnrolment(request: OneTimeCodeRequest): Observable<EnrolmentConfirmation> {
+    return this.http.post<EnrolmentConfirmation>(`${BASE}/enrolment/confirm`, request, { context: showsOwnErrors() });
+  }
+
+  /** Replaces every recovery code; needs a current code. */
+  regenerateRecoveryCodes(request: OneTimeCodeRequest): Observable<RecoveryCodesResponse> {
+    return this.http.post<RecoveryCodesResponse>(`${BASE}/recovery-codes`, request, { context: showsOwnErrors() });
+  }
+
+  /** Switches codes off; needs a current code, refused where the role must keep them. */
+  disable(request: OneTimeCodeRequest): Observable<SessionResponse> {
+    return this.http.post<SessionResponse>(`${BASE}/disable`, request, { context: showsOwnErrors() });
+  }
+}
