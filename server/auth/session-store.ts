@@ -7,12 +7,22 @@ import { SessionRow } from '../entities/session.entity';
 const DEFAULT_TTL_MS = 30 * 60 * 1000;
 
 /**
+ * A rolling session's row is rewritten only when this much time has passed since its stored
+ * expiry was last set: otherwise every request would be a durable database write (an fsync with
+ * synchronous=FULL). The idle limit then ends a session between 29 and 30 minutes after the last
+ * request — earlier, never later (the same trade as connect-mongo's `touchAfter`).
+ */
+export const TOUCH_AFTER_MS = 60 * 1000;
+
+/**
  * express-session store on the application's own database, so sessions survive a
  * restart and follow the data source to PostgreSQL. Rows carry the user id so that
  * deactivating someone can end every one of their sessions.
  */
 export class DatabaseSessionStore extends session.Store {
   private readonly rows: Repository<SessionRow>;
+  /** Expiry as stored, per session id: refreshed from the row on every read, so edits elsewhere are seen. */
+  private readonly storedExpiry = new Map<string, number>();
 
   constructor(dataSource: DataSource) {
     super();
@@ -23,7 +33,11 @@ export class DatabaseSessionStore extends session.Store {
     this.rows
       .findOneBy({ sid })
       .then((row) => {
-        if (!row || Number(row.expiresAt) <= Date.now()) return callback(null, null);
+        if (!row || Number(row.expiresAt) <= Date.now()) {
+          this.storedExpiry.delete(sid);
+          return callback(null, null);
+        }
+        this.storedExpiry.set(sid, Number(row.expiresAt));
         callback(null, JSON.parse(row.data) as session.SessionData);
       })
       .catch((error: unknown) => callback(error));
@@ -34,19 +48,32 @@ export class DatabaseSessionStore extends session.Store {
     const userId = typeof data.passport?.user === 'number' ? data.passport.user : null;
     this.rows
       .upsert({ sid, data: JSON.stringify(data), expiresAt: expires, userId }, ['sid'])
-      .then(() => callback?.())
+      .then(() => {
+        this.storedExpiry.set(sid, expires);
+        callback?.();
+      })
       .catch((error: unknown) => callback?.(error));
   }
 
+  /** Moves the idle expiry on, writing only when the stored one is {@link TOUCH_AFTER_MS} or more behind. */
   override touch(sid: string, data: session.SessionData, callback?: (error?: unknown) => void): void {
     const expires = data.cookie?.expires ? new Date(data.cookie.expires).getTime() : Date.now() + DEFAULT_TTL_MS;
+    const stored = this.storedExpiry.get(sid);
+    if (stored !== undefined && expires - stored < TOUCH_AFTER_MS) {
+      callback?.();
+      return;
+    }
     this.rows
       .update({ sid }, { expiresAt: expires })
-      .then(() => callback?.())
+      .then(() => {
+        this.storedExpiry.set(sid, expires);
+        callback?.();
+      })
       .catch((error: unknown) => callback?.(error));
   }
 
   override destroy(sid: string, callback?: (error?: unknown) => void): void {
+    this.storedExpiry.delete(sid);
     this.rows
       .delete({ sid })
       .then(() => callback?.())
@@ -61,6 +88,7 @@ export class DatabaseSessionStore extends session.Store {
 
   /** Deletes expired rows; express-session never does this itself. */
   async pruneExpired(now = Date.now()): Promise<number> {
+    for (const [sid, expires] of this.storedExpiry) if (expires < now) this.storedExpiry.delete(sid);
     const result = await this.rows.delete({ expiresAt: LessThan(now) });
     return result.affected ?? 0;
   }

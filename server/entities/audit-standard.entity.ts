@@ -1,4 +1,5 @@
 import { Column, Entity, Index, PrimaryGeneratedColumn } from 'typeorm';
+import { FLOAT_TYPE } from './column-types';
 import type { ClavienDindoGrade, StandardMetric } from '@tidemark/shared';
 
 /** A criterion of an audit: a measure from the catalogue, a comparator, a target and its evidence. */
@@ -23,10 +24,10 @@ export class AuditStandard {
   @Column('varchar', { name: 'interval_key', length: 20, nullable: true })
   intervalKey!: string | null;
 
-  @Column('real', { name: 'threshold_mm', nullable: true })
+  @Column(FLOAT_TYPE, { name: 'threshold_mm', nullable: true })
   thresholdMm!: number | null;
 
-  @Column('real', { name: 'threshold_pct', nullable: true })
+  @Column(FLOAT_TYPE, { name: 'threshold_pct', nullable: true })
   thresholdPct!: number | null;
 
   @Column('varchar', { name: 'min_grade', length: 4, nullable: true })
@@ -35,7 +36,7 @@ export class AuditStandard {
   @Column('varchar', { length: 2 })
   comparator!: '>=' | '<=';
 
-  @Column('real')
+  @Column(FLOAT_TYPE)
   target!: number;
 
   @Column('text', { name: 'evidence_source', default: '' })

@@ -1,6 +1,6 @@
 import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn } from 'typeorm';
 import type { CohortDefinition } from '@tidemark/shared';
-import { TIMESTAMP_TYPE } from './column-types';
+import { FLOAT_TYPE, TIMESTAMP_TYPE } from './column-types';
 
 /** An audit: topic, cohort, schedule and stability thresholds. */
 @Entity('audit')
@@ -20,10 +20,10 @@ export class Audit {
   @Column('integer', { name: 'schedule_id' })
   scheduleId!: number;
 
-  @Column('real', { name: 'stable_threshold' })
+  @Column(FLOAT_TYPE, { name: 'stable_threshold' })
   stableThreshold!: number;
 
-  @Column('real', { name: 'relapse_threshold' })
+  @Column(FLOAT_TYPE, { name: 'relapse_threshold' })
   relapseThreshold!: number;
 
   /** Cohort filters (shared cohortSchema), stored as JSON. */

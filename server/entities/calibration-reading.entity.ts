@@ -1,5 +1,5 @@
 import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn } from 'typeorm';
-import { TIMESTAMP_TYPE } from './column-types';
+import { FLOAT_TYPE, TIMESTAMP_TYPE } from './column-types';
 
 /** A repeated REF→GM reading for examiner calibration (pairs: same site, same day). */
 @Entity('calibration_reading')
@@ -17,7 +17,7 @@ export class CalibrationReading {
   @Column('varchar', { name: 'measured_on', length: 10 })
   measuredOn!: string;
 
-  @Column('real', { name: 'ref_gm' })
+  @Column(FLOAT_TYPE, { name: 'ref_gm' })
   refGm!: number;
 
   @CreateDateColumn({ name: 'created_at', type: TIMESTAMP_TYPE })

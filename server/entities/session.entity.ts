@@ -10,9 +10,12 @@ export class SessionRow {
   @Column('text')
   data!: string;
 
-  /** Epoch milliseconds after which the row is dead. */
+  /**
+   * Epoch milliseconds after which the row is dead. PostgreSQL's driver returns bigint as a
+   * string (it may exceed 2^53); epoch milliseconds stay far below, so read it as a number.
+   */
   @Index('IDX_session_expires_at')
-  @Column('bigint', { name: 'expires_at' })
+  @Column('bigint', { name: 'expires_at', transformer: { to: (value: number) => value, from: (value: string | number) => Number(value) } })
   expiresAt!: number;
 
   /** Set once someone signs in, so deactivating a user can end their sessions. */

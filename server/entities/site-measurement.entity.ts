@@ -1,4 +1,5 @@
 import { Column, Entity, Index, PrimaryGeneratedColumn } from 'typeorm';
+import { FLOAT_TYPE } from './column-types';
 
 /** One site's readings at one visit (mm). */
 @Entity('site_measurement')
@@ -14,16 +15,16 @@ export class SiteMeasurement {
   @Column('integer', { name: 'site_id' })
   siteId!: number;
 
-  @Column('real', { name: 'ref_gm' })
+  @Column(FLOAT_TYPE, { name: 'ref_gm' })
   refGm!: number;
 
-  @Column('real', { name: 'probing_depth', nullable: true })
+  @Column(FLOAT_TYPE, { name: 'probing_depth', nullable: true })
   probingDepth!: number | null;
 
   @Column('boolean', { name: 'bleeding_on_probing', nullable: true })
   bleedingOnProbing!: boolean | null;
 
-  @Column('real', { name: 'kt_width', nullable: true })
+  @Column(FLOAT_TYPE, { name: 'kt_width', nullable: true })
   ktWidth!: number | null;
 
   @Column('integer', { name: 'papilla_score', nullable: true })

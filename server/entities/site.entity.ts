@@ -1,4 +1,5 @@
 import { Column, Entity, Index, PrimaryGeneratedColumn } from 'typeorm';
+import { FLOAT_TYPE } from './column-types';
 import type { ReferencePoint, SiteLocation } from '@tidemark/shared';
 
 /** A measured site of a case: one tooth and location, with baseline and surgical readings (mm). */
@@ -21,25 +22,25 @@ export class Site {
   @Column('varchar', { name: 'reference_point', length: 20 })
   referencePoint!: ReferencePoint;
 
-  @Column('real', { name: 'baseline_ref_gm' })
+  @Column(FLOAT_TYPE, { name: 'baseline_ref_gm' })
   baselineRefGm!: number;
 
-  @Column('real', { name: 'probing_depth', nullable: true })
+  @Column(FLOAT_TYPE, { name: 'probing_depth', nullable: true })
   probingDepth!: number | null;
 
-  @Column('real', { name: 'kt_width', nullable: true })
+  @Column(FLOAT_TYPE, { name: 'kt_width', nullable: true })
   ktWidth!: number | null;
 
-  @Column('real', { name: 'margin_to_crest', nullable: true })
+  @Column(FLOAT_TYPE, { name: 'margin_to_crest', nullable: true })
   marginToCrest!: number | null;
 
   @Column('integer', { name: 'papilla_score', nullable: true })
   papillaScore!: number | null;
 
-  @Column('real', { name: 'planned_excision', nullable: true })
+  @Column(FLOAT_TYPE, { name: 'planned_excision', nullable: true })
   plannedExcision!: number | null;
 
-  @Column('real', { name: 'post_op_ref_gm', nullable: true })
+  @Column(FLOAT_TYPE, { name: 'post_op_ref_gm', nullable: true })
   postOpRefGm!: number | null;
 
   @Column('integer', { default: 1 })

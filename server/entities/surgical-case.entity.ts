@@ -1,6 +1,6 @@
 import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
 import type { CaseStatus, Indication, Instrument, Procedure } from '@tidemark/shared';
-import { TIMESTAMP_TYPE } from './column-types';
+import { FLOAT_TYPE, TIMESTAMP_TYPE } from './column-types';
 
 /** One crown-lengthening case: a patient, an operator, a surgery date and its sites. */
 @Entity('surgical_case')
@@ -33,13 +33,13 @@ export class SurgicalCase {
   @Column('boolean', { name: 'hygiene_phase_complete', default: false })
   hygienePhaseComplete!: boolean;
 
-  @Column('real', { name: 'bleeding_score_pct', nullable: true })
+  @Column(FLOAT_TYPE, { name: 'bleeding_score_pct', nullable: true })
   bleedingScorePct!: number | null;
 
-  @Column('real', { name: 'plaque_score_pct', nullable: true })
+  @Column(FLOAT_TYPE, { name: 'plaque_score_pct', nullable: true })
   plaqueScorePct!: number | null;
 
-  @Column('real', { name: 'deepest_probing_mm', nullable: true })
+  @Column(FLOAT_TYPE, { name: 'deepest_probing_mm', nullable: true })
   deepestProbingMm!: number | null;
 
   @Column('boolean', { name: 'suture_resorbable', nullable: true })

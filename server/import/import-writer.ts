@@ -1,10 +1,9 @@
 import type Database from 'better-sqlite3';
 import type { ImportCounts, ImportIssue } from '@tidemark/shared';
-import { IMPORT_PATIENT_COLUMNS } from '@tidemark/shared';
-import type { ImportPlan, PlannedPatient, PlannedSite } from './import-plan';
+import { groupStoredCases, importDatabaseIssues, plannedOperatorEmails, type ImportWriteResult, type StoredImportState, type StoredRow } from './import-database-checks';
+import type { ImportPlan, PlannedSite } from './import-plan';
 
-/** The outcome of a write: the counts written, or every issue that stopped it (nothing written). */
-export type ImportWriteResult = { isWritten: true; counts: ImportCounts } | { isWritten: false; issues: ImportIssue[] };
+export type { ImportWriteResult } from './import-database-checks';
 
 /** Carries the issues out of the transaction function, which rolls back on any throw. */
 class ImportRejected extends Error {
@@ -12,17 +11,6 @@ class ImportRejected extends Error {
     super('The import was rejected.');
   }
 }
-
-/** Patient columns as stored, keyed by the import's column names. */
-const PATIENT_DB_COLUMNS: Readonly<Record<(typeof IMPORT_PATIENT_COLUMNS)[number], { column: string; of: (patient: PlannedPatient) => string | number | null }>> = {
-  birth_year: { column: 'birth_year', of: (patient) => patient.birthYear },
-  sex: { column: 'sex', of: (patient) => patient.sex },
-  smoking: { column: 'smoking', of: (patient) => patient.smoking },
-  cigarettes_per_day: { column: 'cigarettes_per_day', of: (patient) => patient.cigarettesPerDay },
-  diabetes: { column: 'diabetes', of: (patient) => patient.diabetes },
-  phenotype: { column: 'phenotype', of: (patient) => patient.phenotype },
-  phenotype_method: { column: 'phenotype_method', of: (patient) => patient.phenotypeMethod },
-};
 
 /** SQLite allows 999 bound parameters in older builds; stay well under. */
 const CHUNK = 500;
@@ -37,57 +25,29 @@ function placeholders(count: number): string {
   return Array.from({ length: count }, () => '?').join(', ');
 }
 
-type StoredRow = Record<string, string | number | null>;
-
-/** Checks that need the database, on the same snapshot the inserts will see. */
-function databaseIssues(db: Database.Database, plan: ImportPlan, operatorIds: Map<string, number>, existingPatients: Map<string, StoredRow>): ImportIssue[] {
-  const issues: ImportIssue[] = [];
-  const emails = [...new Set(plan.patients.flatMap((patient) => patient.cases.map((found) => found.operatorEmail)))];
-  for (const part of chunks(emails)) {
+/** Reads what the plan touches, on the same snapshot the inserts will see. */
+function storedState(db: Database.Database, plan: ImportPlan): StoredImportState {
+  const operatorIds = new Map<string, number>();
+  for (const part of chunks(plannedOperatorEmails(plan))) {
     const found = db.prepare<string[], { id: number; email: string }>(`SELECT id, email FROM "user" WHERE active = 1 AND role IN ('clinician', 'audit_lead') AND email IN (${placeholders(part.length)})`).all(...part);
     for (const user of found) operatorIds.set(user.email, user.id);
   }
-  const codes = plan.patients.map((patient) => patient.code);
-  for (const part of chunks(codes)) {
+  const existingPatients = new Map<string, StoredRow>();
+  for (const part of chunks(plan.patients.map((patient) => patient.code))) {
     const found = db.prepare<string[], StoredRow>(`SELECT * FROM patient WHERE code IN (${placeholders(part.length)})`).all(...part);
     for (const patient of found) existingPatients.set(String(patient.code), patient);
   }
-  const existingCases = new Map<string, Set<number>>();
-  const patientIds = [...existingPatients.values()].map((patient) => Number(patient.id));
-  for (const part of chunks(patientIds)) {
-    const found = db
-      .prepare<number[], { patient_id: number; surgery_date: string; tooth: number | null }>(
-        `SELECT c.patient_id, c.surgery_date, s.tooth FROM surgical_case c LEFT JOIN site s ON s.case_id = c.id WHERE c.patient_id IN (${placeholders(part.length)})`,
-      )
-      .all(...part);
-    for (const row of found) {
-      const key = `${row.patient_id}|${row.surgery_date}`;
-      const teeth = existingCases.get(key) ?? new Set<number>();
-      if (row.tooth !== null) teeth.add(row.tooth);
-      existingCases.set(key, teeth);
-    }
+  const caseRows: { patient_id: number; surgery_date: string; tooth: number | null }[] = [];
+  for (const part of chunks([...existingPatients.values()].map((patient) => Number(patient.id)))) {
+    caseRows.push(
+      ...db
+        .prepare<number[], { patient_id: number; surgery_date: string; tooth: number | null }>(
+          `SELECT c.patient_id, c.surgery_date, s.tooth FROM surgical_case c LEFT JOIN site s ON s.case_id = c.id WHERE c.patient_id IN (${placeholders(part.length)})`,
+        )
+        .all(...part),
+    );
   }
-  for (const patient of plan.patients) {
-    const stored = existingPatients.get(patient.code);
-    if (stored) {
-      for (const [column, { column: dbColumn, of }] of Object.entries(PATIENT_DB_COLUMNS)) {
-        if (stored[dbColumn] !== of(patient)) issues.push({ row: patient.row, column, message: 'Differs from the patient already recorded in Tidemark under this code.' });
-      }
-    }
-    for (const surgicalCase of patient.cases) {
-      if (!operatorIds.has(surgicalCase.operatorEmail)) {
-        for (const row of surgicalCase.rows) issues.push({ row, column: 'operator_email', message: 'No active clinician or audit lead signs in with this e-mail.' });
-      }
-      const teeth = stored ? existingCases.get(`${stored.id}|${surgicalCase.surgeryDate}`) : undefined;
-      if (!teeth) continue;
-      const duplicates = surgicalCase.sites.filter((site) => teeth.has(site.tooth));
-      for (const site of duplicates) {
-        for (const row of site.rows) issues.push({ row, column: 'tooth', message: `Already recorded: this patient's tooth ${site.tooth} in a case operated on this date.` });
-      }
-      if (duplicates.length === 0) issues.push({ row: surgicalCase.row, column: 'surgery_date', message: 'This patient already has a case on this surgery date; the import adds whole new cases only.' });
-    }
-  }
-  return issues;
+  return { operatorIds, existingPatients, existingCases: groupStoredCases(caseRows) };
 }
 
 /**
@@ -114,9 +74,9 @@ export function writeImportPlan(db: Database.Database, plan: ImportPlan, importe
   const totalRows = Math.max(1, plan.patients.reduce((sum, patient) => sum + patient.rows.length, 0));
 
   const write = db.transaction((): ImportCounts => {
-    const operatorIds = new Map<string, number>();
-    const existingPatients = new Map<string, StoredRow>();
-    const issues = [...plan.issues, ...databaseIssues(db, plan, operatorIds, existingPatients)];
+    const stored = storedState(db, plan);
+    const { operatorIds, existingPatients } = stored;
+    const issues = [...plan.issues, ...importDatabaseIssues(plan, stored)];
     if (issues.length) throw new ImportRejected(issues);
     const counts: ImportCounts = { patients: 0, cases: 0, sites: 0, visits: 0 };
     let rowsWritten = 0;

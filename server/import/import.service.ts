@@ -10,6 +10,7 @@ import { buildImportPlan } from './import-plan';
 import { importFileKind, readImportTable } from './import-table';
 import { csvTemplate, xlsxTemplate } from './import-template';
 import { writeImportPlan } from './import-writer';
+import { writeImportPlanOnPostgres } from './postgres-import-writer';
 import { sqliteConnection } from './sqlite-connection';
 
 /** An import in progress or finished (kept in memory for an hour; the file itself is never stored). */
@@ -98,7 +99,12 @@ export class ImportService {
     const knownIntervals = await this.schedules.knownIntervalKeys();
     const plan = await buildImportPlan(table, knownIntervals, (fraction) => onProgress('validating', 0.1 + 0.6 * fraction));
     onProgress('importing', 0.7);
-    const result = writeImportPlan(sqliteConnection(this.dataSource), plan, user.id, (fraction) => onProgress('importing', 0.7 + 0.3 * fraction));
+    const onWritten = (fraction: number): void => onProgress('importing', 0.7 + 0.3 * fraction);
+    // SQLite keeps its fast synchronous path on the raw connection; PostgreSQL goes through a TypeORM transaction.
+    const result =
+      this.dataSource.options.type === 'postgres'
+        ? await writeImportPlanOnPostgres(this.dataSource, plan, user.id, onWritten)
+        : writeImportPlan(sqliteConnection(this.dataSource), plan, user.id, onWritten);
     if (!result.isWritten) {
       const issues = [...result.issues].sort((a, b) => a.row - b.row);
       return { state: 'rejected', progress: 1, counts: plan.counts, issues };

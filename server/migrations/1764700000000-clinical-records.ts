@@ -1,11 +1,11 @@
 import type { MigrationInterface, QueryRunner, TableColumnOptions } from 'typeorm';
 import { Table, TableForeignKey, TableIndex } from 'typeorm';
-import { TIMESTAMP_TYPE } from '../entities/column-types';
+import { FLOAT_TYPE, TIMESTAMP_TYPE } from '../entities/column-types';
 
 const id: TableColumnOptions = { name: 'id', type: 'integer', isPrimary: true, isGenerated: true, generationStrategy: 'increment' };
 const version: TableColumnOptions = { name: 'version', type: 'integer', default: 1 };
 const createdAt: TableColumnOptions = { name: 'created_at', type: TIMESTAMP_TYPE, default: 'CURRENT_TIMESTAMP' };
-const mm = (name: string, isNullable = true): TableColumnOptions => ({ name, type: 'real', isNullable });
+const mm = (name: string, isNullable = true): TableColumnOptions => ({ name, type: FLOAT_TYPE, isNullable });
 const mmCheck = (column: string) => ({ name: `CHK_${column}_mm`, expression: `${column} IS NULL OR (${column} >= 0 AND ${column} <= 20)` });
 const fk = (columnNames: string[], referencedTableName: string, onDelete: 'CASCADE' | 'RESTRICT' | 'SET NULL' = 'RESTRICT') =>
   new TableForeignKey({ columnNames, referencedTableName, referencedColumnNames: ['id'], onDelete });
@@ -48,8 +48,8 @@ export class ClinicalRecords1764700000000 implements MigrationInterface {
           { name: 'indication', type: 'varchar', length: '32' },
           { name: 'instrument', type: 'varchar', length: '16' },
           { name: 'hygiene_phase_complete', type: 'boolean', default: false },
-          { name: 'bleeding_score_pct', type: 'real', isNullable: true },
-          { name: 'plaque_score_pct', type: 'real', isNullable: true },
+          { name: 'bleeding_score_pct', type: FLOAT_TYPE, isNullable: true },
+          { name: 'plaque_score_pct', type: FLOAT_TYPE, isNullable: true },
           mm('deepest_probing_mm'),
           { name: 'suture_resorbable', type: 'boolean', isNullable: true },
           { name: 'suture_size', type: 'varchar', length: '8', isNullable: true },

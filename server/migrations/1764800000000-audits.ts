@@ -1,7 +1,7 @@
 import type { MigrationInterface, QueryRunner, TableColumnOptions } from 'typeorm';
 import { Table, TableForeignKey, TableIndex } from 'typeorm';
 import { DEFAULT_RECALL_SCHEDULE } from '@tidemark/shared';
-import { TIMESTAMP_TYPE } from '../entities/column-types';
+import { FLOAT_TYPE, TIMESTAMP_TYPE } from '../entities/column-types';
 
 const id: TableColumnOptions = { name: 'id', type: 'integer', isPrimary: true, isGenerated: true, generationStrategy: 'increment' };
 const version: TableColumnOptions = { name: 'version', type: 'integer', default: 1 };
@@ -35,8 +35,8 @@ export class Audits1764800000000 implements MigrationInterface {
           { name: 'rationale', type: 'text', default: "''" },
           { name: 'lead_id', type: 'integer' },
           { name: 'schedule_id', type: 'integer' },
-          { name: 'stable_threshold', type: 'real' },
-          { name: 'relapse_threshold', type: 'real' },
+          { name: 'stable_threshold', type: FLOAT_TYPE },
+          { name: 'relapse_threshold', type: FLOAT_TYPE },
           { name: 'cohort', type: 'text' },
           { name: 'reaudit_date', type: 'varchar', length: '10', isNullable: true },
           createdAt,
@@ -55,11 +55,11 @@ export class Audits1764800000000 implements MigrationInterface {
           { name: 'criterion', type: 'varchar', length: '400' },
           { name: 'metric', type: 'varchar', length: '40' },
           { name: 'interval_key', type: 'varchar', length: '20', isNullable: true },
-          { name: 'threshold_mm', type: 'real', isNullable: true },
-          { name: 'threshold_pct', type: 'real', isNullable: true },
+          { name: 'threshold_mm', type: FLOAT_TYPE, isNullable: true },
+          { name: 'threshold_pct', type: FLOAT_TYPE, isNullable: true },
           { name: 'min_grade', type: 'varchar', length: '4', isNullable: true },
           { name: 'comparator', type: 'varchar', length: '2' },
-          { name: 'target', type: 'real' },
+          { name: 'target', type: FLOAT_TYPE },
           { name: 'evidence_source', type: 'text', default: "''" },
           { name: 'exceptions', type: 'text', default: "''" },
           version,
@@ -129,7 +129,7 @@ export class Audits1764800000000 implements MigrationInterface {
           { name: 'site_id', type: 'integer' },
           { name: 'examiner_id', type: 'integer' },
           { name: 'measured_on', type: 'varchar', length: '10' },
-          { name: 'ref_gm', type: 'real' },
+          { name: 'ref_gm', type: FLOAT_TYPE },
           createdAt,
         ],
         checks: [{ name: 'CHK_calibration_ref_gm', expression: 'ref_gm >= 0 AND ref_gm <= 20' }],

@@ -1,6 +1,7 @@
 import type { CaseDetail, ChangeRecordView, SiteView } from '@tidemark/shared';
 import { clinicalFingerprint, countRows, createCase, createClinicalWorld, expectStatus, rowOf, siteBody, type ClinicalWorld } from './support/clinical-fixtures';
 import { ApiClient } from './support/test-app';
+import { queryRows } from './support/test-database';
 
 type HistoryPage = { items: ChangeRecordView[]; total: number };
 
@@ -89,11 +90,12 @@ describe('change history of measurements (DESIGN.md §7: append-only, who, when,
     expectStatus(await w.as('clinician').patch(`/api/sites/${site.id}`, { postOpRefGm: 10, version: 1 }), 200);
     const [record] = (await w.t.dataSource.query('SELECT * FROM change_record ORDER BY id DESC LIMIT 1')) as Record<string, unknown>[];
     const count = await countRows(w.t, 'change_record');
-    await expect(w.t.dataSource.query("UPDATE change_record SET new_value = '12', reason = 'tampered' WHERE id = ?", [record.id])).rejects.toThrow(/append-only/);
-    await expect(w.t.dataSource.query('DELETE FROM change_record WHERE id = ?', [record.id])).rejects.toThrow(/append-only/);
+    const id = record.id;
+    await expect(queryRows(w.t.dataSource, "UPDATE change_record SET new_value = '12', reason = 'tampered' WHERE id = :id", { id })).rejects.toThrow(/append-only/);
+    await expect(queryRows(w.t.dataSource, 'DELETE FROM change_record WHERE id = :id', { id })).rejects.toThrow(/append-only/);
     await expect(w.t.dataSource.query('DELETE FROM change_record')).rejects.toThrow(/append-only/);
     expect(await countRows(w.t, 'change_record')).toBe(count);
-    const [after] = (await w.t.dataSource.query('SELECT * FROM change_record WHERE id = ?', [record.id])) as Record<string, unknown>[];
+    const [after] = await queryRows(w.t.dataSource, 'SELECT * FROM change_record WHERE id = :id', { id });
     expect(after).toEqual(record);
   });
 });

@@ -31,9 +31,14 @@ describe('health and unknown paths', () => {
 
   it('answers 503 when the database is gone', async () => {
     const broken = await createTestApp();
-    await broken.dataSource.destroy();
-    const response = await request(broken.app).get('/api/health');
-    expect(response.status).toBe(503);
-    expect(response.body.error.code).toBe('unavailable');
+    try {
+      await broken.dataSource.destroy();
+      const response = await request(broken.app).get('/api/health');
+      expect(response.status).toBe(503);
+      expect(response.body.error.code).toBe('unavailable');
+    } finally {
+      // Deletes the throwaway database (on PostgreSQL a whole database would otherwise be left behind).
+      await broken.close();
+    }
   });
 });
