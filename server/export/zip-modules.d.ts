@@ -50,7 +50,7 @@ declare module 'unzipper' {
   }
 
   const unzipper: {
-    Open: { file(path: string): Promise<CentralDirectory> };
+    Open: { file(path: string): Promise<CentralDirectory>; buffer(data: Buffer): Promise<CentralDirectory> };
   };
   export default unzipper;
 }

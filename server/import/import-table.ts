@@ -3,7 +3,8 @@ import type { ImportColumn, ImportIssue } from '@tidemark/shared';
 import { IMPORT_COLUMNS, OPTIONAL_IMPORT_COLUMNS } from '@tidemark/shared';
 import { HttpError } from '../http-error';
 import { CsvFormatError, parseCsv } from './csv-records';
-import { readSheetRecords, type PlainCell } from './sheet-records';
+import { checkUnpackedSize } from './workbook-size-guard';
+import { readSheetRecords, type PlainCell, type SheetRecord } from './sheet-records';
 
 /** The two formats the import reads. */
 export type ImportFileKind = 'xlsx' | 'csv';
@@ -54,6 +55,16 @@ function isBlank(cells: readonly (PlainCell | string)[]): boolean {
   return cells.every((cell) => cell === null || (typeof cell === 'string' && cell.trim() === ''));
 }
 
+/** The template's rows of a workbook, or 'unreadable' when its zip or XML is damaged (the reader then throws). */
+async function readWorkbook(bytes: Buffer): Promise<SheetRecord[] | null | 'unreadable'> {
+  try {
+    return await readSheetRecords(bytes, IMPORT_COLUMNS[0]);
+  } catch {
+    // A cut-off or corrupt .xlsx (unzipper: FILE_ENDED, invalid signature …) is the file's fault, not ours.
+    return 'unreadable';
+  }
+}
+
 /**
  * Reads the file's rows and finds our columns in its header. The header (row 1) must name every
  * required column once and nothing else; blank rows are skipped (their numbers still count).
@@ -68,7 +79,12 @@ export async function readImportTable(kind: ImportFileKind, bytes: Buffer): Prom
       throw error;
     }
   } else {
-    const sheet = await readSheetRecords(bytes, IMPORT_COLUMNS[0]);
+    const unpacked = await checkUnpackedSize(bytes);
+    if (!unpacked.ok && unpacked.reason !== 'damaged') {
+      return { rows: [], positions: new Map(), issues: [{ row: 0, column: '', message: 'The workbook unpacks to far more than a Tidemark import can hold (over 100 MB or 200 parts). Save only the template sheet, or split the rows into several files.' }] };
+    }
+    const sheet = await readWorkbook(bytes);
+    if (sheet === 'unreadable') return { rows: [], positions: new Map(), issues: [{ row: 0, column: '', message: 'The workbook could not be read: it is damaged or incomplete. Save it again from Excel and upload it anew.' }] };
     if (sheet === null) return { rows: [], positions: new Map(), issues: [{ row: 1, column: '', message: `No worksheet has a header row starting with ${IMPORT_COLUMNS[0]} (use the template).` }] };
     records = sheet;
   }

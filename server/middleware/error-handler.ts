@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler } from 'express';
 import type { ApiErrorBody, ApiErrorCode } from '@tidemark/shared';
 import { HttpError } from '../http-error';
+import { isUniqueViolation } from '../services/unique-violation';
 
 interface HttpishError {
   status?: number;
@@ -16,6 +17,8 @@ function isHttpish(error: unknown): error is HttpishError {
 /** Maps errors thrown by body parsers and other middleware to our JSON error shape. */
 function toHttpError(error: unknown): HttpError | undefined {
   if (error instanceof HttpError) return error;
+  // Two requests saved the same thing at once and the database's unique index stopped the second.
+  if (isUniqueViolation(error)) return HttpError.conflict('Someone saved the same record at the same moment. Reload to see it, then try again.');
   if (!isHttpish(error)) return undefined;
   switch (error.type) {
     case 'entity.parse.failed':

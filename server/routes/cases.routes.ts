@@ -29,7 +29,9 @@ function singlePhoto(): RequestHandler {
         if (error.code === 'LIMIT_FILE_SIZE') return next(new HttpError(413, 'payload_too_large', 'The photograph is larger than 15 MB.'));
         return next(HttpError.badRequest(`The upload was refused: ${error.message}.`, { file: error.message }));
       }
-      next(error);
+      // busboy's own parse errors (a malformed part header, a missing boundary, a cut-off body) are the client's, not ours.
+      if (error) return next(HttpError.badRequest('The upload is not a well-formed multipart form.', { file: 'Send the photograph again from the form.' }));
+      next();
     });
   };
 }

@@ -8,7 +8,7 @@ import { routeId } from './route-params';
 import { signedInUser } from './signed-in-user';
 
 /** `POST /api/audits/:id/exports` body: live results (no cycle) or one cycle. */
-const exportStartSchema = z.object({ cycleId: z.number().int().positive().nullable().default(null) });
+export const exportStartSchema = z.object({ cycleId: z.number().int().positive().nullable().default(null) });
 const jobParams = z.object({ jobId: z.uuid('Not a valid job id.') });
 
 /** `POST /api/audits/:id/exports` → 202 { jobId }: starts a governance workbook. */

@@ -5,7 +5,8 @@ import { validateBody } from '../middleware/validate';
 import type { MailService } from '../services/mail.service';
 import { routeId } from './route-params';
 
-const sendPackSchema = z.object({ cycleId: z.number().int().positive().nullable().default(null) });
+/** `POST /api/audits/:id/send-pack` body: live results (no cycle) or one cycle. */
+export const sendPackSchema = z.object({ cycleId: z.number().int().positive().nullable().default(null) });
 
 /** `/api/outbox`: the mail queue for administrators, with retry and "run the schedules now". */
 export function outboxRoutes(mail: MailService): Router {

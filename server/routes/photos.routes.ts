@@ -11,7 +11,8 @@ export function photoRoutes(photos: PhotoService): Router {
     router.get(`/:id${suffix}`, async (req, res) => {
       const { bytes, contentType } = await photos.read(req.user as Express.User, routeId(req.params), variant);
       res.setHeader('Content-Type', contentType);
-      res.setHeader('Cache-Control', 'private, max-age=3600');
+      // Revalidated on every view (ETag → 304), never served stale from a shared or browser cache.
+      res.setHeader('Cache-Control', 'private, no-cache');
       res.setHeader('Content-Disposition', 'inline');
       res.send(bytes);
     });

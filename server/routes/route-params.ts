@@ -1,9 +1,16 @@
 import { z } from 'zod';
 import { parseOrThrow } from '../middleware/validate';
 
-const idSchema = z.object({ id: z.coerce.number().int('Not a valid id.').positive('Not a valid id.').max(2 ** 31, 'Not a valid id.') });
+// Canonical decimal only: `z.coerce.number()` alone read `0x1`, `+1`, `1e0`, ` 1` and `01` as record 1.
+const idSchema = z.object({
+  id: z
+    .string()
+    .regex(/^[1-9]\d{0,9}$/, 'Not a valid id.')
+    .transform(Number)
+    .pipe(z.number().max(2 ** 31, 'Not a valid id.')),
+});
 
-/** The numeric `:id` of a route, or a 400. */
+/** The numeric `:id` of a route (digits only, no sign, no leading zero), or a 400. */
 export function routeId(params: Record<string, string | string[]>): number {
   return parseOrThrow(idSchema, params).id;
 }

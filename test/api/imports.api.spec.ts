@@ -78,6 +78,68 @@ async function xlsxOf(rows: readonly ImportCells[]): Promise<Buffer> {
   return Buffer.from(await workbook.xlsx.writeBuffer());
 }
 
+/** Where the killed import writes, how to count its rows and how to check the database afterwards. */
+interface CrashTarget {
+  openOptions: { database: string; url?: string };
+  counts(): Promise<Record<string, number>>;
+  expectIntact(): Promise<void>;
+}
+
+/** Foreign keys among the tables the import writes: child table, column, parent table. */
+const IMPORT_FOREIGN_KEYS: readonly [string, string, string][] = [
+  ['surgical_case', 'patient_id', 'patient'],
+  ['site', 'case_id', 'surgical_case'],
+  ['visit', 'case_id', 'surgical_case'],
+  ['site_measurement', 'visit_id', 'visit'],
+  ['site_measurement', 'site_id', 'site'],
+];
+
+/**
+ * SQLite: a copy of the test database taken with the online backup (never a file copy), checked
+ * with integrity_check and foreign_key_check. PostgreSQL: the test's own database (the server
+ * rolls back a dead connection's transaction), checked for orphan rows and for the import's
+ * table lock being released, which proves the rollback happened.
+ */
+async function crashTarget(w: ClinicalWorld, directory: string): Promise<CrashTarget> {
+  const options = w.t.dataSource.options;
+  if (options.type === 'postgres' && options.url) {
+    const countOf = async (sql: string): Promise<number> => Number(((await w.t.dataSource.query(sql)) as { n: number | string }[])[0].n);
+    return {
+      openOptions: { database: '', url: options.url },
+      counts: async () => Object.fromEntries(await Promise.all(CLINICAL_TABLES.map(async (table) => [table, await countOf(`SELECT COUNT(*) AS n FROM ${table}`)] as const))),
+      async expectIntact() {
+        for (const [child, column, parent] of IMPORT_FOREIGN_KEYS) {
+          expect(await countOf(`SELECT COUNT(*) AS n FROM ${child} x LEFT JOIN ${parent} p ON p.id = x.${column} WHERE p.id IS NULL`), `${child}.${column}`).toBe(0);
+        }
+        const importLocks = "SELECT COUNT(*) AS n FROM pg_locks l JOIN pg_class c ON c.oid = l.relation WHERE l.database = (SELECT oid FROM pg_database WHERE datname = current_database()) AND c.relname = 'patient' AND l.mode = 'ShareRowExclusiveLock'";
+        await expect.poll(() => countOf(importLocks), { timeout: 10_000 }).toBe(0);
+      },
+    };
+  }
+  const copy = path.join(directory, 'copy.sqlite');
+  await sqliteConnection(w.t.dataSource).backup(copy);
+  return {
+    openOptions: { database: copy },
+    async counts() {
+      const db = new Database(copy, { readonly: true });
+      try {
+        return Object.fromEntries(CLINICAL_TABLES.map((table) => [table, Number(db.prepare<[], { n: number }>(`SELECT COUNT(*) AS n FROM ${table}`).get()?.n)]));
+      } finally {
+        db.close();
+      }
+    },
+    async expectIntact() {
+      const reopened = new Database(copy);
+      try {
+        expect(reopened.pragma('integrity_check', { simple: true })).toBe('ok');
+        expect(reopened.pragma('foreign_key_check')).toEqual([]);
+      } finally {
+        reopened.close();
+      }
+    },
+  };
+}
+
 /** Uploads a file and waits for its job to finish; returns the final job view. */
 async function importFile(w: ClinicalWorld, bytes: Buffer, filename: string, contentType = 'text/csv'): Promise<{ jobId: string; view: ImportJobView }> {
   const lead = w.as('audit_lead');
@@ -289,18 +351,8 @@ describe('historical import', () => {
     });
 
     it('SIGKILL while the transaction writes leaves the database as before and intact', { timeout: 180_000 }, async () => {
-      // A copy of the test database, taken with SQLite's online backup (never a file copy).
-      const copy = path.join(directory, 'copy.sqlite');
-      await sqliteConnection(w.t.dataSource).backup(copy);
-      const counts = (file: string): Record<string, number> => {
-        const db = new Database(file, { readonly: true });
-        try {
-          return Object.fromEntries(CLINICAL_TABLES.map((table) => [table, Number(db.prepare<[], { n: number }>(`SELECT COUNT(*) AS n FROM ${table}`).get()?.n)]));
-        } finally {
-          db.close();
-        }
-      };
-      const before = counts(copy);
+      const target = await crashTarget(w, directory);
+      const before = await target.counts();
 
       // 2,500 cases × 3 sites × 5 intervals = 37,500 rows: long enough to be killed while writing.
       const rows: string[] = [IMPORT_COLUMNS.join(',')];
@@ -340,7 +392,7 @@ describe('historical import', () => {
           const { openDatabase } = await import(${JSON.stringify(module('server/data-source.ts'))});
           const { ImportService } = await import(${JSON.stringify(module('server/import/import.service.ts'))});
           const { ScheduleService } = await import(${JSON.stringify(module('server/services/schedule.service.ts'))});
-          const dataSource = await openDatabase({ database: ${JSON.stringify(copy)} });
+          const dataSource = await openDatabase(${JSON.stringify(target.openOptions)});
           const service = new ImportService(dataSource, new ScheduleService(dataSource));
           const outcome = await service.importFile(${JSON.stringify(lead)}, readFileSync(${JSON.stringify(file)}), (state, progress) => {
             if (state === 'importing' && progress > 0.7) process.stdout.write('writing ' + progress + '\\n');
@@ -363,14 +415,8 @@ describe('historical import', () => {
       expect(stdout).not.toMatch(/finished/);
       expect(exit.signal).toBe('SIGKILL');
 
-      expect(counts(copy)).toEqual(before);
-      const reopened = new Database(copy);
-      try {
-        expect(reopened.pragma('integrity_check', { simple: true })).toBe('ok');
-        expect(reopened.pragma('foreign_key_check')).toEqual([]);
-      } finally {
-        reopened.close();
-      }
+      expect(await target.counts()).toEqual(before);
+      await target.expectIntact();
     });
   });
 });

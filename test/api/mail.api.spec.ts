@@ -61,7 +61,8 @@ describe('mail through the local SMTP stand-in', () => {
     const pack = captured.find((mail) => mail.to.includes('governance@example.org'));
     expect(pack).toBeDefined();
     expect(textOf(pack?.raw)).toMatch(/governance pack/i);
-    expect(textOf(pack?.raw)).toMatch(/http:\/\/localhost:3000\/reports/);
+    // The link opens Reports on this audit and cycle (shared/types/reports-link.ts).
+    expect(textOf(pack?.raw)).toContain(`http://localhost:3000/reports?audit=${auditId}&cycle=${cycleId}`);
     expect(textOf(pack?.raw)).not.toMatch(/MAIL-0001/);
     expect(captured.every((mail) => !mail.to.includes('clinician@example.org'))).toBe(true);
   });
