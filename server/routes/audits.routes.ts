@@ -9,6 +9,7 @@ import {
   cohortPreviewSchema,
   cycleCreateSchema,
   cycleUpdateSchema,
+  resultsNarrowingSchema,
   reviewNoteCreateSchema,
   standardCreateSchema,
   standardUpdateSchema,
@@ -31,9 +32,16 @@ export interface AuditRouteServices {
 }
 
 const cycleScope = z.object({ cycleId: z.coerce.number().int().positive().optional() });
-const resultsQuery = cycleScope.extend({ groupBy: z.enum(GROUP_BY_OPTIONS).optional() });
-const funnelQuery = cycleScope.extend({ measure: z.enum(['complication', 'relapse']).default('complication'), intervalKey: z.string().max(20).optional() });
-const trendQuery = cycleScope.extend({ intervalKey: z.string().max(20).optional() });
+/** Live or a cycle, narrowed to a phenotype and/or an operator when asked. */
+const narrowedScope = cycleScope.extend(resultsNarrowingSchema.shape);
+const resultsQuery = narrowedScope.extend({ groupBy: z.enum(GROUP_BY_OPTIONS).optional() });
+// The funnel compares every operator, so only the phenotype narrows it.
+const funnelQuery = cycleScope.extend({
+  phenotype: resultsNarrowingSchema.shape.phenotype,
+  measure: z.enum(['complication', 'relapse']).default('complication'),
+  intervalKey: z.string().max(20).optional(),
+});
+const trendQuery = narrowedScope.extend({ intervalKey: z.string().max(20).optional() });
 const compareQuery = z.object({ first: z.coerce.number().int().positive(), second: z.coerce.number().int().positive() });
 
 /** `/api/audits`: audits, their standards, cycles, notes and every result view. */
@@ -77,7 +85,11 @@ export function auditRoutes(services: AuditRouteServices): Router {
   });
 
   router.get('/:id/results', async (req, res) => {
-    res.json(await services.results.results(user(req), routeId(req.params), parseOrThrow(resultsQuery, req.query)));
+    const results = await services.results.results(user(req), routeId(req.params), parseOrThrow(resultsQuery, req.query));
+    // Patient-derived and per-viewer: no shared caches, and revalidate every time (Express's ETag
+    // then answers an unchanged result with 304; RFC 9111 §5.2.2.4, §5.2.2.7).
+    res.set('Cache-Control', 'private, no-cache');
+    res.json(results);
   });
   router.get('/:id/funnel', async (req, res) => {
     res.json(await services.results.funnel(user(req), routeId(req.params), parseOrThrow(funnelQuery, req.query)));
@@ -86,10 +98,10 @@ export function auditRoutes(services: AuditRouteServices): Router {
     res.json(await services.results.trend(user(req), routeId(req.params), parseOrThrow(trendQuery, req.query)));
   });
   router.get('/:id/survival', async (req, res) => {
-    res.json(await services.results.survival(user(req), routeId(req.params), parseOrThrow(cycleScope, req.query)));
+    res.json(await services.results.survival(user(req), routeId(req.params), parseOrThrow(narrowedScope, req.query)));
   });
   router.get('/:id/calibration', async (req, res) => {
-    res.json(await services.results.calibration(user(req), routeId(req.params), parseOrThrow(cycleScope, req.query)));
+    res.json(await services.results.calibration(user(req), routeId(req.params), parseOrThrow(narrowedScope, req.query)));
   });
   router.get('/:id/compare', async (req, res) => {
     const query = parseOrThrow(compareQuery, req.query);

@@ -96,20 +96,35 @@ export class CaseService {
     if (query.tooth) builder.andWhere('EXISTS (SELECT 1 FROM site s WHERE s.case_id = c.id AND s.tooth = :tooth)', { tooth: query.tooth });
     if (query.patientCode) builder.andWhere('p.code LIKE :code', { code: `%${query.patientCode.toUpperCase().replace(/[%_]/g, '')}%` });
 
-    const total = await builder.getCount();
+    const offset = query.page * query.pageSize;
     const rows = await builder
+      .clone()
       .orderBy(SORT_COLUMNS[query.sort], query.direction === 'asc' ? 'ASC' : 'DESC')
       .addOrderBy('c.id', 'DESC')
-      .offset(query.page * query.pageSize)
+      .offset(offset)
       .limit(query.pageSize)
       .getRawMany<Record<string, string | number>>();
+    // A page that is neither full nor empty is the last one: its end is the total, no count needed.
+    const isLastPage = rows.length > 0 && rows.length < query.pageSize;
+    const total = isLastPage ? offset + rows.length : await builder.getCount();
     const ids = rows.map((row) => Number(row.id));
-    const sites = ids.length ? await this.dataSource.getRepository(Site).find({ where: { caseId: In(ids) }, select: { caseId: true, tooth: true } }) : [];
+    // Raw rows, one per distinct tooth: hydrating Site entities cost more than the query itself.
+    const sites = ids.length
+      ? await this.dataSource
+          .createQueryBuilder()
+          .select('s.case_id', 'case_id')
+          .addSelect('s.tooth', 'tooth')
+          .distinct(true)
+          .from('site', 's')
+          .where('s.case_id IN (:...ids)', { ids })
+          .getRawMany<{ case_id: number; tooth: number }>()
+      : [];
     const teethByCase = new Map<number, Set<number>>();
     for (const site of sites) {
-      const teeth = teethByCase.get(site.caseId) ?? new Set<number>();
-      teeth.add(site.tooth);
-      teethByCase.set(site.caseId, teeth);
+      const caseId = Number(site.case_id);
+      const teeth = teethByCase.get(caseId) ?? new Set<number>();
+      teeth.add(Number(site.tooth));
+      teethByCase.set(caseId, teeth);
     }
     const items: CaseListItem[] = rows.map((row) => ({
       id: Number(row.id),

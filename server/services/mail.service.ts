@@ -1,4 +1,5 @@
 import type { Transporter } from 'nodemailer';
+import { reportsLinkPath } from '@tidemark/shared';
 import type { DataSource } from 'typeorm';
 import { In, LessThanOrEqual } from 'typeorm';
 import { ActionItem } from '../entities/action-item.entity';
@@ -9,6 +10,7 @@ import { MailMessage, type MailKind } from '../entities/mail-message.entity';
 import { User } from '../entities/user.entity';
 import { HttpError } from '../http-error';
 import type { RecallService } from './recall.service';
+import { isUniqueViolation } from './unique-violation';
 
 /** Minutes to wait before each retry; after the last one the message is marked failed. */
 export const RETRY_BACKOFF_MINUTES = [1, 5, 15, 60];
@@ -73,7 +75,13 @@ export class MailService {
   async enqueue(kind: MailKind, to: string, subject: string, body: string, dedupeKey: string | null = null, now = new Date()): Promise<boolean> {
     const repository = this.dataSource.getRepository(MailMessage);
     if (dedupeKey && (await repository.existsBy({ dedupeKey }))) return false;
-    await repository.insert({ kind, toAddress: to, subject, body, status: 'queued', attempts: 0, lastError: null, nextAttemptAt: now, sentAt: null, messageId: null, dedupeKey });
+    try {
+      await repository.insert({ kind, toAddress: to, subject, body, status: 'queued', attempts: 0, lastError: null, nextAttemptAt: now, sentAt: null, messageId: null, dedupeKey });
+    } catch (error) {
+      // Another run (a second app server on PostgreSQL) queued the same key between the check and the insert: it goes out once.
+      if (dedupeKey && isUniqueViolation(error)) return false;
+      throw error;
+    }
     return true;
   }
 
@@ -140,7 +148,7 @@ export class MailService {
           `Dear ${member.displayName},`,
           '',
           `The governance pack for the audit "${audit.title}" (${cycleLabel}) is ready.`,
-          `Sign in to download it: ${this.options.appUrl}/reports`,
+          `Sign in to download it: ${this.options.appUrl}${reportsLinkPath(auditId, cycleId)}`,
           '',
           'The workbook holds de-identified results only. For clinical audit and quality improvement; not a diagnostic tool.',
         ].join('\n'),
