@@ -12,7 +12,7 @@ export default defineConfig({
   test: {
     environment: 'node',
     globals: true,
-    include: ['analytics/**/*.spec.ts', 'shared/**/*.spec.ts', 'server/**/*.spec.ts', 'test/api/**/*.spec.ts'],
+    include: ['analytics/**/*.spec.ts', 'shared/**/*.spec.ts', 'server/**/*.spec.ts', 'test/api/**/*.spec.ts', 'test/maintenance/**/*.spec.ts', 'test/docs/**/*.spec.ts', 'test/fuzz/**/*.fuzz.spec.ts'],
     testTimeout: 30_000,
     hookTimeout: 60_000,
     pool: 'forks',

@@ -12,7 +12,13 @@ import { OWASP_SCRYPT_COST, type ScryptCost } from './auth/password';
 import { createPassport } from './auth/passport-setup';
 import { DatabaseSessionStore } from './auth/session-store';
 import { errorHandler } from './middleware/error-handler';
+import { requestLogProps, requestLogSerializers } from './middleware/request-log';
+import { secondFactorGate } from './auth/second-factor-gate';
+import { SecondFactorService } from './services/second-factor.service';
+import { secondFactorRoutes } from './routes/second-factor.routes';
+import type { SecondFactorPolicy } from '@tidemark/shared';
 import { apiNotFound } from './middleware/not-found';
+import { governanceRedaction } from './middleware/governance-redaction';
 import { authRoutes, DEFAULT_LOGIN_LIMITS, SESSION_COOKIE, type LoginLimits } from './routes/auth.routes';
 import { healthRoutes } from './routes/health.routes';
 import { userRoutes } from './routes/users.routes';
@@ -34,6 +40,7 @@ import { VisitService } from './services/visit.service';
 import { AuditCycleService } from './services/audit-cycle.service';
 import { AuditDatasetService } from './services/audit-dataset.service';
 import { AuditResultsService } from './services/audit-results.service';
+import { AuditResultsCache } from './services/audit-results-cache';
 import { AuditService } from './services/audit.service';
 import { CalibrationService } from './services/calibration.service';
 import { ScheduleService } from './services/schedule.service';
@@ -49,6 +56,8 @@ import { GovernancePackService } from './export/governance-pack.service';
 import { auditExportRoutes, exportRoutes } from './routes/exports.routes';
 import { ImportService } from './import/import.service';
 import { importRoutes } from './routes/imports.routes';
+import { SystemOverviewService, type InstallationFacts } from './services/system-overview.service';
+import { settingsRoutes } from './routes/settings.routes';
 
 /** Idle timeout: the cookie (and the row) expire 30 minutes after the last request. */
 export const SESSION_IDLE_MS = 30 * 60 * 1000;
@@ -75,6 +84,12 @@ export interface AppOptions {
   logLevel?: string;
   /** Express `trust proxy` when served behind a TLS-terminating proxy. */
   trustProxy?: boolean | number | string;
+  /** One-time codes: `required` for admins and audit leads (default), or only `offered` (demo mode). */
+  secondFactor?: SecondFactorPolicy;
+  /** Epoch-ms clock for one-time codes; tests fix it. */
+  clock?: () => number;
+  /** What the administrator's Settings page reports (backups folder, demo mode, photo and mail set-up); see server/main.ts. */
+  installation?: InstallationFacts;
 }
 
 /** The parts of a built app that callers (main, tests, seeds) need besides the Express app. */
@@ -82,6 +97,8 @@ export interface TidemarkApp {
   app: Express;
   sessions: DatabaseSessionStore;
   users: UserService;
+  /** One-time codes and recovery codes. */
+  secondFactors: SecondFactorService;
   services: ClinicalServices;
   /** Governance workbook jobs. */
   exports: GovernanceExportService;
@@ -125,7 +142,7 @@ export function createServices(dataSource: DataSource, photoStorage: PhotoStorag
     audits,
     datasets,
     cycles,
-    results: new AuditResultsService(audits, cycles, operators),
+    results: new AuditResultsService(audits, cycles, operators, new AuditResultsCache(dataSource)),
     calibration: new CalibrationService(dataSource, cases),
     operators,
     patients,
@@ -139,6 +156,12 @@ export function createServices(dataSource: DataSource, photoStorage: PhotoStorag
   };
 }
 
+/** `Cache-Control: no-store` on every API answer; routes that may be revalidated (photos, results) replace it. */
+const noStoreByDefault: RequestHandler = (_req, res, next) => {
+  res.setHeader('Cache-Control', 'no-store');
+  next();
+};
+
 /** Ends sessions older than the absolute limit, even if they were kept alive. */
 const absoluteTimeout: RequestHandler = (req, _res, next) => {
   const signedInAt = req.session?.signedInAt;
@@ -149,12 +172,29 @@ const absoluteTimeout: RequestHandler = (req, _res, next) => {
   next();
 };
 
+/** The Settings page's service, from the app's options (the backups folder defaults to `<dataDir>/backups`, beside the exports folder). */
+function systemOverview(options: AppOptions): SystemOverviewService {
+  const facts = options.installation ?? {};
+  return new SystemOverviewService(options.dataSource, {
+    backupsDir: facts.backupsDir ?? path.join(path.dirname(options.exportsDir), 'backups'),
+    dailyBackupsKept: facts.dailyBackupsKept ?? 0,
+    isDemo: facts.isDemo ?? false,
+    photoStorage: facts.photoStorage ?? null,
+    mail: facts.mail ?? null,
+    mailFrom: options.mail.from,
+    secondFactorPolicy: options.secondFactor ?? 'required',
+    sessionIdleMs: SESSION_IDLE_MS,
+    sessionAbsoluteMs: SESSION_ABSOLUTE_MS,
+  });
+}
+
 /** Builds the Express app (no `listen`), so tests run it in-process. */
 export function createApp(options: AppOptions): TidemarkApp {
   if (options.secret.length < 32) throw new Error('The session secret must be at least 32 characters.');
   const sessions = new DatabaseSessionStore(options.dataSource);
   const users = new UserService(options.dataSource, sessions, options.scryptCost ?? OWASP_SCRYPT_COST);
   const passport = createPassport(users);
+  const secondFactors = new SecondFactorService(options.dataSource, sessions, { policy: options.secondFactor ?? 'required', appSecret: options.secret, clock: options.clock });
   const csrf = createCsrfProtection(options.secret);
   const services = createServices(options.dataSource, options.photoStorage, options.mail);
   const exports = new GovernanceExportService(new GovernancePackService(options.dataSource, services.audits, services.cycles, services.operators), { exportsDir: options.exportsDir });
@@ -167,11 +207,9 @@ export function createApp(options: AppOptions): TidemarkApp {
   app.use(
     pinoHttp({
       level: options.logLevel ?? 'info',
-      // Method, path and status only: headers carry cookies and tokens.
-      serializers: {
-        req: (req: { method: string; url: string }) => ({ method: req.method, url: req.url }),
-        res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
-      },
+      // Method, path (no query), status and member id: see middleware/request-log.ts.
+      serializers: requestLogSerializers,
+      customProps: requestLogProps,
       autoLogging: { ignore: (req) => req.url === '/api/health' },
     }),
   );
@@ -207,9 +245,14 @@ export function createApp(options: AppOptions): TidemarkApp {
 
   const api = express.Router();
   api.use('/health', healthRoutes(options.dataSource));
+  // Clinical answers are not kept in browser or proxy caches unless a route says otherwise (ASVS 5.0 14.3.2).
+  api.use(noStoreByDefault);
   api.use(csrf.middleware);
-  api.use('/auth', authRoutes(passport, csrf, options.loginLimits ?? DEFAULT_LOGIN_LIMITS));
-  api.use('/users', userRoutes(users));
+  // Before every resource: a session waiting for its code, or one that must set codes up first, reaches nothing else.
+  api.use(secondFactorGate(secondFactors));
+  api.use('/auth/second-factor', secondFactorRoutes(secondFactors, csrf, options.loginLimits ?? DEFAULT_LOGIN_LIMITS));
+  api.use('/auth', authRoutes(passport, csrf, options.loginLimits ?? DEFAULT_LOGIN_LIMITS, secondFactors));
+  api.use('/users', userRoutes(users, secondFactors));
   api.use('/operators', operatorRoutes(services.operators));
   api.use('/patients', patientRoutes(services.patients));
   api.use('/cases', caseRoutes(services));
@@ -220,6 +263,8 @@ export function createApp(options: AppOptions): TidemarkApp {
   api.use('/recalls', recallRoutes(services.recalls));
   api.use('/history', historyRoutes(services.history));
   api.use('/schedules', scheduleRoutes(services.schedules));
+  // Governance reads audits de-identified: team-written text redacted as in its workbook.
+  api.use('/audits', governanceRedaction(options.dataSource));
   api.use('/audits', auditRoutes(services));
   const parts = auditPartRoutes(services);
   api.use('/standards', parts.standards);
@@ -231,6 +276,7 @@ export function createApp(options: AppOptions): TidemarkApp {
   api.use('/exports', exportRoutes(exports));
   api.use('/imports', importRoutes(imports));
   api.use('/outbox', outboxRoutes(services.mail));
+  api.use('/settings', settingsRoutes(systemOverview(options)));
   api.use(apiNotFound);
   app.use('/api', api);
 
@@ -246,5 +292,5 @@ export function createApp(options: AppOptions): TidemarkApp {
   }
 
   app.use(errorHandler);
-  return { app, sessions, users, services, exports, imports };
+  return { app, sessions, users, secondFactors, services, exports, imports };
 }

@@ -1,18 +1,22 @@
 import 'reflect-metadata';
 import type { Server } from 'node:http';
 import path from 'node:path';
-import { LocalPhotoStorage } from './storage/photo-storage';
+import { createPhotoStorage } from './storage/create-photo-storage';
 import { createApp } from './app';
+import { resolveListenPort } from './listen-port';
 import { loadConfig } from './config';
 import { openDatabase } from './data-source';
 import { seedDemo } from './demo/seed-demo';
 import nodemailer from 'nodemailer';
 import { SmtpStandIn } from './mail/smtp-stand-in';
+import { startDailyBackups } from './maintenance/daily-backups';
 
 /** Starts Tidemark: migrate, seed the demo on an empty database, serve app + API. */
 async function main(): Promise<void> {
   const config = loadConfig();
-  const dataSource = await openDatabase({ database: config.databaseFile });
+  // PORT=0 picks a free port; it is settled now so e-mail links (APP_URL's default) name it.
+  const port = await resolveListenPort(config.port);
+  const dataSource = await openDatabase({ database: config.databaseFile, url: config.databaseUrl });
   // Without a configured mail server the demo captures mail locally (data/outbox).
   let standIn: SmtpStandIn | undefined;
   let smtp = config.smtp;
@@ -31,12 +35,22 @@ async function main(): Promise<void> {
   const { app, sessions, users, services, exports, imports } = createApp({
     dataSource,
     secret: config.secret,
-    photoStorage: new LocalPhotoStorage(config.uploadsDir),
+    photoStorage: createPhotoStorage(config.photoStorage),
     exportsDir: path.join(config.dataDir, 'exports'),
-    mail: { transport, from: config.mailFrom, appUrl: config.appUrl ?? `http://localhost:${config.port}` },
+    mail: { transport, from: config.mailFrom, appUrl: config.appUrl ?? `http://localhost:${port}` },
     clientDir: config.clientDir,
     logLevel: config.logLevel,
     trustProxy: config.trustProxy,
+    // The demo accounts in the README must keep working without an authenticator app.
+    secondFactor: config.isDemo ? 'offered' : 'required',
+    // For the administrator's Settings page: kinds and places only; it never reports the SMTP password.
+    installation: {
+      backupsDir: config.backupsDir,
+      dailyBackupsKept: config.databaseUrl ? 0 : config.dailyBackupsKept,
+      isDemo: config.isDemo,
+      photoStorage: config.photoStorage,
+      mail: standIn ? { kind: 'stand-in' } : { kind: 'smtp', host: smtp.host ?? '127.0.0.1', port: smtp.port, secure: smtp.secure, user: smtp.user, password: smtp.password },
+    },
   });
   if (config.isDemo && (await users.count()) === 0) {
     console.log('Empty database: seeding the demo practice (demo mode; set TIDEMARK_DEMO=off to skip).');
@@ -52,15 +66,16 @@ async function main(): Promise<void> {
   const mailTimer = setInterval(runMail, 60 * 60 * 1000);
   mailTimer.unref();
   setTimeout(runMail, 5_000).unref();
-  const server: Server = app.listen(config.port, () => {
-    const address = server.address();
-    const port = typeof address === 'object' && address ? address.port : config.port;
+  // The SQLite file only: a PostgreSQL server is backed up with its own tools.
+  const stopDailyBackups = config.databaseUrl ? () => undefined : startDailyBackups({ databaseFile: config.databaseFile, backupsDir: config.backupsDir, keep: config.dailyBackupsKept });
+  const server: Server = app.listen(port, () => {
     console.log(`Tidemark is listening on http://localhost:${port} (data in ${config.dataDir})`);
   });
   const shutdown = (): void => {
     stopPruning();
     for (const stop of stopSweepingJobs) stop();
     clearInterval(mailTimer);
+    stopDailyBackups();
     void standIn?.stop();
     server.close(() => {
       dataSource.destroy().finally(() => process.exit(0));

@@ -4,9 +4,11 @@ import { requireRole } from '../middleware/require-role';
 import { validateBody } from '../middleware/validate';
 import { routeId } from './route-params';
 import type { UserService } from '../services/user.service';
+import type { SecondFactorService } from '../services/second-factor.service';
+import { signedInUser } from './signed-in-user';
 
 /** `/api/users`: team administration, admin only. */
-export function userRoutes(users: UserService): Router {
+export function userRoutes(users: UserService, secondFactors: SecondFactorService): Router {
   const router = Router();
   router.use(requireRole('admin'));
 
@@ -20,6 +22,12 @@ export function userRoutes(users: UserService): Router {
 
   router.patch('/:id', validateBody(userUpdateSchema), async (req, res) => {
     res.json(await users.update(routeId(req.params), req.body, (req.user as Express.User).id));
+  });
+
+  // A lost phone: remove the member's one-time and recovery codes and end their sessions.
+  router.delete('/:id/second-factor', async (req, res) => {
+    await secondFactors.reset(routeId(req.params), signedInUser(req).id);
+    res.status(204).end();
   });
 
   return router;

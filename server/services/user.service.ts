@@ -1,18 +1,22 @@
-import type { DataSource, Repository } from 'typeorm';
+import { IsNull, Not, type DataSource, type Repository } from 'typeorm';
 import type { Role, UserView } from '@tidemark/shared';
 import { z } from 'zod';
 import { userCreateSchema, userUpdateSchema } from '@tidemark/shared';
 import { isCommonPassword } from '../auth/common-passwords';
 import { hashPassword, verifyPassword, type ScryptCost } from '../auth/password';
 import type { DatabaseSessionStore } from '../auth/session-store';
+import { UserSecondFactor } from '../entities/user-second-factor.entity';
 import { User } from '../entities/user.entity';
+import { columnHydrator } from '../column-hydrator';
 import { HttpError } from '../http-error';
+import { portableSql } from '../portable-sql';
+import { enabledAtMillis } from './second-factor.service';
 
 type UserCreate = z.output<typeof userCreateSchema>;
 type UserUpdate = z.output<typeof userUpdateSchema>;
 
-/** Turns a row into what the API returns (never the hash). */
-export function mapUser(user: User): UserView {
+/** Turns a row into what the API returns (never the hash, nor anything of the second factor but whether it is on). */
+export function mapUser(user: User, secondFactorEnabled: boolean): UserView {
   return {
     id: user.id,
     email: user.email,
@@ -21,21 +25,55 @@ export function mapUser(user: User): UserView {
     active: user.active,
     createdAt: new Date(user.createdAt).toISOString(),
     lastSignInAt: user.lastSignInAt ? new Date(user.lastSignInAt).toISOString() : null,
+    secondFactorEnabled,
   };
+}
+
+/** Alias of the joined set-up's "switched on" flag in {@link UserService.list}'s raw rows. */
+const FACTOR_ON = 'factor_on';
+
+/** Who a signed-in session belongs to, as read on every request. */
+export interface SessionPrincipal {
+  user: Express.User;
+  /** When their one-time codes were switched on (epoch ms), or null when they are off. */
+  secondFactorEnabledAt: number | null;
+}
+
+/** A row of {@link UserService.findSessionPrincipal}'s statement, as the driver returns it. */
+interface SessionPrincipalRow {
+  email: string;
+  display_name: string;
+  role: Role;
+  active: unknown;
+  enabled_at: unknown;
 }
 
 /** Users, sign-in checks and administration. */
 export class UserService {
   private readonly users: Repository<User>;
+  private readonly factors: Repository<UserSecondFactor>;
+  /** Every signed-in request's lookup as one parameterised statement (see {@link findSessionPrincipal}). */
+  private readonly selectSessionPrincipal: string;
+  /** `user.active` as the entity reads it (SQLite stores 0/1, PostgreSQL a boolean). */
+  private readonly hydrateActive: (raw: unknown) => unknown;
+  /** `user_second_factor.enabled_at` as the entity reads it (SQLite keeps UTC text, PostgreSQL a timestamptz). */
+  private readonly hydrateEnabledAt: (raw: unknown) => unknown;
   /** Compared against when the e-mail is unknown, so both failures take the same time. */
   private dummyHash: Promise<string> | undefined;
 
   constructor(
-    dataSource: DataSource,
+    private readonly dataSource: DataSource,
     private readonly sessions: DatabaseSessionStore,
     private readonly scryptCost: ScryptCost,
   ) {
     this.users = dataSource.getRepository(User);
+    this.factors = dataSource.getRepository(UserSecondFactor);
+    this.selectSessionPrincipal = portableSql(
+      dataSource,
+      'SELECT u.email, u.display_name, u.role, u.active, f.enabled_at FROM "user" u LEFT JOIN user_second_factor f ON f.user_id = u.id WHERE u.id = ?',
+    );
+    this.hydrateActive = columnHydrator(dataSource, User, 'active');
+    this.hydrateEnabledAt = columnHydrator(dataSource, UserSecondFactor, 'enabledAt');
   }
 
   /** The active user with these credentials, or null. Records the sign-in time. */
@@ -52,16 +90,35 @@ export class UserService {
     return { id: user.id, email: user.email, displayName: user.displayName, role: user.role };
   }
 
-  /** The session's user if they still exist and are active. */
-  async findActiveSessionUser(id: number): Promise<Express.User | null> {
-    const user = await this.users.findOneBy({ id });
-    if (!user || !user.active) return null;
-    return { id: user.id, email: user.email, displayName: user.displayName, role: user.role };
+  /**
+   * The session's user if they still exist and are active, with their one-time-code state, which
+   * the second-factor gate needs next. Every signed-in request asks (passport's deserializeUser),
+   * so it is one parameterised statement: through repositories these were two `findOneBy`s whose
+   * query building cost several times the queries. Values are converted exactly as the entities
+   * would read them.
+   */
+  async findSessionPrincipal(id: number): Promise<SessionPrincipal | null> {
+    const [row] = await this.dataSource.query<SessionPrincipalRow[]>(this.selectSessionPrincipal, [id]);
+    if (!row || this.hydrateActive(row.active) !== true) return null;
+    return {
+      user: { id, email: row.email, displayName: row.display_name, role: row.role },
+      secondFactorEnabledAt: enabledAtMillis(this.hydrateEnabledAt(row.enabled_at)),
+    };
   }
 
+  /** Everyone with an account, by name, each with whether their one-time codes are on: one query, however large the team. */
   async list(): Promise<UserView[]> {
-    const rows = await this.users.find({ order: { displayName: 'ASC' } });
-    return rows.map(mapUser);
+    const { entities, raw } = await this.users
+      .createQueryBuilder('user')
+      // A row with only a pending (unconfirmed) set-up does not count: its codes do not work yet.
+      .leftJoin(UserSecondFactor, 'factor', 'factor.userId = user.id AND factor.enabledAt IS NOT NULL')
+      .addSelect('CASE WHEN factor.userId IS NULL THEN 0 ELSE 1 END', FACTOR_ON)
+      .orderBy('user.displayName', 'ASC')
+      .addOrderBy('user.id', 'ASC')
+      .getRawAndEntities<Record<string, unknown>>();
+    // Matched by id rather than by position, so the pairing never depends on how TypeORM groups rows.
+    const isOn = new Map(raw.map((row) => [Number(row['user_id']), Number(row[FACTOR_ON]) === 1]));
+    return entities.map((user) => mapUser(user, isOn.get(user.id) ?? false));
   }
 
   async create(input: UserCreate): Promise<UserView> {
@@ -77,7 +134,8 @@ export class UserService {
       passwordHash: await hashPassword(input.password, this.scryptCost),
       lastSignInAt: null,
     });
-    return mapUser(await this.users.save(user));
+    // A new account has no one-time codes until its owner sets them up.
+    return mapUser(await this.users.save(user), false);
   }
 
   async update(id: number, change: UserUpdate, actingUserId: number): Promise<UserView> {
@@ -100,7 +158,7 @@ export class UserService {
     if (change.active === false || change.password !== undefined || change.role !== undefined) {
       await this.sessions.destroyForUser(id);
     }
-    return mapUser(saved);
+    return mapUser(saved, await this.isSecondFactorOn(id));
   }
 
   /** Creates a user unless the e-mail exists (tests and the demo seed). */
@@ -125,6 +183,11 @@ export class UserService {
 
   async count(): Promise<number> {
     return this.users.count();
+  }
+
+  /** Whether the member's one-time codes are on (a pending, unconfirmed set-up does not count). */
+  private async isSecondFactorOn(userId: number): Promise<boolean> {
+    return this.factors.existsBy({ userId, enabledAt: Not(IsNull()) });
   }
 
   private assertNotCommon(password: string): void {

@@ -53,4 +53,6 @@ export interface UserView {
   active: boolean;
   createdAt: string;
   lastSignInAt: string | null;
+  /** One-time codes (the second sign-in factor) are switched on for this member. */
+  secondFactorEnabled: boolean;
 }

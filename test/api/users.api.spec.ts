@@ -1,5 +1,7 @@
+import { Secret } from 'otpauth';
 import request from 'supertest';
-import { ROLES, type Role } from '@tidemark/shared';
+import { ROLES, type Role, type UserView } from '@tidemark/shared';
+import { totpCode } from '../../server/auth/totp';
 import { User } from '../../server/entities/user.entity';
 import { ApiClient, createTestApp, signedInAs, type TestApp } from './support/test-app';
 
@@ -155,5 +157,82 @@ describe('/api/users behaviour', () => {
   it('is not reachable without a session even with a forged cookie', async () => {
     const response = await request(t.app).get('/api/users').set('Cookie', 'tm.sid=s%3Aforged.signature');
     expect(response.status).toBe(401);
+  });
+});
+
+describe("/api/users: whether each member's sign-in protection is on", () => {
+  let t: TestApp;
+  let admin: ApiClient;
+  beforeAll(async () => {
+    t = await createTestApp();
+    admin = await signedInAs(t.app, 'admin');
+  });
+  afterAll(async () => {
+    await t.close();
+  });
+
+  /** The listed member with this e-mail. */
+  async function listed(email: string): Promise<UserView> {
+    const response = await admin.get('/api/users');
+    expect(response.status).toBe(200);
+    const member = (response.body as UserView[]).find((candidate) => candidate.email === email);
+    if (!member) throw new Error(`${email} is not listed`);
+    return member;
+  }
+
+  /** Starts a set-up for the signed-in client; returns the raw secret its authenticator app would hold. */
+  async function startCodes(client: ApiClient): Promise<Uint8Array> {
+    const started = await client.post('/api/auth/second-factor/enrolment');
+    expect(started.status).toBe(200);
+    return Secret.fromBase32(started.body.secret).bytes;
+  }
+
+  it('lists codes off for everyone at first, and on once a member confirms a set-up (a pending one does not count)', async () => {
+    const everyone = (await admin.get('/api/users')).body as UserView[];
+    expect(everyone.map((member) => member.secondFactorEnabled)).toEqual(everyone.map(() => false));
+
+    const partner = await signedInAs(t.app, 'partner');
+    const partnerSecret = await startCodes(partner);
+    expect((await listed('partner@example.org')).secondFactorEnabled).toBe(false);
+    // RFC 6238: the code of the current 30-second step confirms the set-up.
+    expect((await partner.post('/api/auth/second-factor/enrolment/confirm', { code: totpCode(partnerSecret, Date.now()) })).status).toBe(200);
+    expect((await listed('partner@example.org')).secondFactorEnabled).toBe(true);
+    expect((await listed('governance@example.org')).secondFactorEnabled).toBe(false);
+
+    const governance = await signedInAs(t.app, 'governance');
+    await startCodes(governance);
+    expect((await listed('governance@example.org')).secondFactorEnabled).toBe(false);
+  });
+
+  it('answers a rename with the same flag, and shows it off again after an administrator resets it', async () => {
+    const partner = await listed('partner@example.org');
+    const renamed = await admin.patch(`/api/users/${partner.id}`, { displayName: 'Dr Pat Partner (renamed)' });
+    expect(renamed.status).toBe(200);
+    expect(renamed.body).toMatchObject({ displayName: 'Dr Pat Partner (renamed)', secondFactorEnabled: true });
+
+    expect((await admin.delete(`/api/users/${partner.id}/second-factor`)).status).toBe(204);
+    expect((await listed('partner@example.org')).secondFactorEnabled).toBe(false);
+  });
+
+  it('reads the whole list in one database query, however many members have codes', async () => {
+    for (let n = 0; n < 6; n++) {
+      expect((await admin.post('/api/users', { email: `extra.${n}@example.org`, displayName: `Extra member ${n}`, role: 'clinician', password: `a-long-enough-passphrase-${n}` })).status).toBe(201);
+    }
+    const member = await signedInAs(t.app, 'clinician');
+    const secret = await startCodes(member);
+    expect((await member.post('/api/auth/second-factor/enrolment/confirm', { code: totpCode(secret, Date.now()) })).status).toBe(200);
+
+    const logQuery = vi.spyOn(t.dataSource.logger, 'logQuery');
+    try {
+      const members = await t.users.list();
+      expect(logQuery).toHaveBeenCalledTimes(1);
+      expect(members).toHaveLength(11);
+      expect(members.filter((listedMember) => listedMember.secondFactorEnabled).map((listedMember) => listedMember.email)).toEqual(['clinician@example.org']);
+      // Still sorted by name, as before the join.
+      const names = members.map((listedMember) => listedMember.displayName);
+      expect(names).toEqual([...names].sort((a, b) => (a < b ? -1 : a > b ? 1 : 0)));
+    } finally {
+      logQuery.mockRestore();
+    }
   });
 });

@@ -1,6 +1,7 @@
 import type { Response } from 'supertest';
 import type { CaseCreateRequest, CaseDetail, PatientCreateRequest, Role, SiteFieldsInput, SiteMeasurementInput, VisitCreateRequest } from '@tidemark/shared';
 import { ApiClient, createTestApp, signedInAs, type TestApp } from './test-app';
+import { queryRows } from './test-database';
 
 /*
  * Builders for valid clinical bodies and a small "world" of signed-in clients, shared by the
@@ -100,8 +101,8 @@ export interface ClinicalWorld {
 const SECOND_CLINICIAN = { email: 'second.operator@example.org', displayName: 'Dr Sam Second (test)', role: 'clinician', password: 'second-operator-long-passphrase' } as const;
 
 /** Builds the world: a fresh database, one client per role and a second clinician. */
-export async function createClinicalWorld(): Promise<ClinicalWorld> {
-  const t = await createTestApp();
+export async function createClinicalWorld(options: Parameters<typeof createTestApp>[0] = {}): Promise<ClinicalWorld> {
+  const t = await createTestApp(options);
   const roles: Role[] = ['admin', 'audit_lead', 'clinician', 'partner', 'governance'];
   const clients = new Map<Actor, ApiClient>();
   for (const role of roles) clients.set(role, await signedInAs(t.app, role));
@@ -161,14 +162,14 @@ export async function clinicalFingerprint(t: TestApp): Promise<Record<string, nu
 
 /** The stored version of one row. */
 export async function versionOf(t: TestApp, table: ClinicalTable, id: number): Promise<number> {
-  const [row] = (await t.dataSource.query(`SELECT version FROM ${table} WHERE id = ?`, [id])) as { version: number }[];
+  const [row] = await queryRows<{ version: number }>(t.dataSource, `SELECT version FROM ${table} WHERE id = :id`, { id });
   if (!row) throw new Error(`No ${table} row ${id}`);
   return Number(row.version);
 }
 
 /** One stored row, as the database has it. */
 export async function rowOf(t: TestApp, table: ClinicalTable, id: number): Promise<Record<string, unknown>> {
-  const [row] = (await t.dataSource.query(`SELECT * FROM ${table} WHERE id = ?`, [id])) as Record<string, unknown>[];
+  const [row] = await queryRows(t.dataSource, `SELECT * FROM ${table} WHERE id = :id`, { id });
   if (!row) throw new Error(`No ${table} row ${id}`);
   return row;
 }

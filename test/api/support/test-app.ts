@@ -5,13 +5,17 @@ import type { Express } from 'express';
 import request, { type Response } from 'supertest';
 import type TestAgent from 'supertest/lib/agent';
 import type { DataSource } from 'typeorm';
-import type { Role } from '@tidemark/shared';
+import type { Role, SecondFactorPolicy } from '@tidemark/shared';
 import { createApp, type TidemarkApp } from '../../../server/app';
-import { openDatabase } from '../../../server/data-source';
 import nodemailer, { type Transporter } from 'nodemailer';
-import { LocalPhotoStorage } from '../../../server/storage/photo-storage';
+import { LocalPhotoStorage, type PhotoStorage } from '../../../server/storage/photo-storage';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../../server/demo/demo-accounts';
 import type { LoginLimits } from '../../../server/routes/auth.routes';
+import type { InstallationFacts } from '../../../server/services/system-overview.service';
+import { openTestDatabase } from './test-database';
+
+/** The session and CSRF signing secret of every test app (secret scans look for it in answers). */
+export const TEST_SECRET = 'test-secret-that-is-long-enough-for-hmac-0123456789';
 
 /** A cheap scrypt cost for tests only; production keeps OWASP's N = 2^17. */
 export const TEST_SCRYPT_COST = { N: 2 ** 10, r: 8, p: 1 };
@@ -23,15 +27,16 @@ export interface TestApp extends TidemarkApp {
   close(): Promise<void>;
 }
 
-/** Builds the app on a fresh temporary SQLite database with the demo accounts. */
-export async function createTestApp(options: { loginLimits?: LoginLimits; trustProxy?: boolean; mailTransport?: Transporter } = {}): Promise<TestApp> {
+/** Builds the app on a fresh migrated database (a temporary SQLite file, or PostgreSQL under TIDEMARK_TEST_PG_URL) with the demo accounts. */
+export async function createTestApp(options: { loginLimits?: LoginLimits; trustProxy?: boolean; mailTransport?: Transporter; photoStorage?: PhotoStorage; secondFactor?: SecondFactorPolicy; clock?: () => number; installation?: InstallationFacts } = {}): Promise<TestApp> {
   const dataDir = mkdtempSync(path.join(tmpdir(), 'tidemark-test-'));
-  const dataSource = await openDatabase({ database: path.join(dataDir, 'tidemark.sqlite') });
+  const database = await openTestDatabase(dataDir);
+  const dataSource = database.dataSource;
   const built = createApp({
     dataSource,
-    secret: 'test-secret-that-is-long-enough-for-hmac-0123456789',
+    secret: TEST_SECRET,
     clientDir: null,
-    photoStorage: new LocalPhotoStorage(path.join(dataDir, 'uploads')),
+    photoStorage: options.photoStorage ?? new LocalPhotoStorage(path.join(dataDir, 'uploads')),
     exportsDir: path.join(dataDir, 'exports'),
     // No network by default: nodemailer's JSON transport; mail tests pass the SMTP stand-in.
     mail: { transport: options.mailTransport ?? nodemailer.createTransport({ jsonTransport: true }), from: 'Tidemark <no-reply@example.org>', appUrl: 'http://localhost:3000' },
@@ -39,6 +44,11 @@ export async function createTestApp(options: { loginLimits?: LoginLimits; trustP
     loginLimits: options.loginLimits ?? { perAccount: 1000, perAddress: 1000, windowMs: 60_000 },
     logLevel: 'silent',
     trustProxy: options.trustProxy,
+    // Most suites sign in as admin or audit lead with a password only; second-factor tests pass 'required'.
+    secondFactor: options.secondFactor ?? 'offered',
+    clock: options.clock,
+    // What the Settings page reports; the backups folder defaults to <dataDir>/backups.
+    installation: options.installation,
   });
   for (const account of DEMO_ACCOUNTS) await built.users.ensure({ ...account, password: DEMO_PASSWORD });
   return {
@@ -46,7 +56,7 @@ export async function createTestApp(options: { loginLimits?: LoginLimits; trustP
     dataSource,
     dataDir,
     async close() {
-      await dataSource.destroy();
+      await database.close();
       rmSync(dataDir, { recursive: true, force: true });
     },
   };
@@ -96,6 +106,20 @@ export class ApiClient {
 
   async get(url: string): Promise<Response> {
     return this.track(await this.agent.get(url));
+  }
+
+  /** A GET whose answer is read whole into a Buffer body (photographs, workbooks). */
+  async getBytes(url: string, headers: Record<string, string> = {}): Promise<Response> {
+    const response = await this.agent
+      .get(url)
+      .set(headers)
+      .buffer(true)
+      .parse((res, callback) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (chunk: Buffer) => chunks.push(chunk));
+        res.on('end', () => callback(null, Buffer.concat(chunks)));
+      });
+    return this.track(response);
   }
 
   async send(method: 'post' | 'put' | 'patch' | 'delete', url: string, body?: object): Promise<Response> {
