@@ -11,8 +11,8 @@
  *      queries (cases, visits, complications); they are read once before timing, like
  *      the floor they are data access rather than analytics, and their read time is
  *      printed to stderr for reference.
- * Prints one JSON line: { name, rows, floorMs, pipelineMs, ratio, peakRssMb } (medians).
- * Goal: ratio ≤ 1.5 and peak RSS ≤ 500 MB.
+ * Prints one bench line (support/bench-line.ts): value = pipeline ms, floor = floor ms (medians),
+ * ratio, rows, peakRssMb. Goal: ratio ≤ 1.5 and peak RSS ≤ 500 MB.
  */
 import Database from 'better-sqlite3';
 import { mkdtempSync, rmSync } from 'node:fs';
@@ -29,23 +29,17 @@ import type {
   SmokingStatus,
 } from '../../shared/types/outcome-record';
 import { DEFAULT_RECALL_SCHEDULE } from '../../shared/types/recall-schedule';
+import { printBenchLine, ratioOf } from './support/bench-line';
+import { median } from './support/median';
+import { mulberry32 } from './support/mulberry32';
+import { peakRssMb } from './support/peak-rss';
 
 const SITES = 100_000;
 const RUNS = 7;
 const SEED = 20_240_901;
 const AS_OF = '2025-06-30';
-
-/** mulberry32 (Tommy Ettinger, public domain): small, fast, seedable. */
-function mulberry32(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4_294_967_296;
-  };
-}
+const GOAL_RATIO = 1.5;
+const RSS_LIMIT_MB = 500;
 
 const random = mulberry32(SEED);
 const pick = <T>(items: readonly T[]): T => items[Math.floor(random() * items.length)];
@@ -267,12 +261,6 @@ function readCases(db: Database.Database): CaseOutcome[] {
   return outcomes;
 }
 
-function median(values: number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  const middle = Math.floor(sorted.length / 2);
-  return sorted.length % 2 === 1 ? sorted[middle] : (sorted[middle - 1] + sorted[middle]) / 2;
-}
-
 function time(task: () => number): { ms: number; rows: number } {
   const start = performance.now();
   const rows = task();
@@ -321,17 +309,20 @@ function main(): void {
     }
     const floorMedian = median(floorMs);
     const pipelineMedian = median(pipelineMs);
-    console.log(
-      JSON.stringify({
-        name: 'analytics-summary',
-        rows,
-        floorMs: Math.round(floorMedian),
-        pipelineMs: Math.round(pipelineMedian),
-        ratio: Math.round((pipelineMedian / floorMedian) * 100) / 100,
-        // maxRSS is reported in kilobytes.
-        peakRssMb: Math.round(process.resourceUsage().maxRSS / 1024),
-      }),
-    );
+    const ratio = ratioOf(pipelineMedian, floorMedian);
+    const peakRss = peakRssMb();
+    printBenchLine({
+      name: 'analytics-summary',
+      value: Math.round(pipelineMedian),
+      floor: Math.round(floorMedian),
+      ratio,
+      goal: GOAL_RATIO,
+      unit: 'ms',
+      met: ratio !== null && ratio <= GOAL_RATIO && peakRss <= RSS_LIMIT_MB,
+      criteria: 'ratio <= 1.5 and peak RSS <= 500 MB',
+      rows,
+      peakRssMb: peakRss,
+    });
     console.error(`case-level inputs: ${caseRead.rows} cases read in ${Math.round(caseRead.ms)} ms (untimed)`);
   } finally {
     db.close();

@@ -13,8 +13,8 @@
  *      pictures).
  * Each run is its own child process (this file with `--run floor|pipeline <n>`), so the two never
  * share a heap and each peak RSS is that run's alone; the dataset is built before the clock starts.
- * Prints one JSON line: { name, value (pipeline ms), floor (ms), ratio, goal, unit, peakRssMb, met }
- * (medians; peakRssMb is the highest pipeline run's). Goal: ratio ≤ 2 and peak RSS < 300 MB.
+ * Prints one bench line (support/bench-line.ts): value = pipeline ms, floor = floor ms (medians),
+ * ratio, peakRssMb (the highest pipeline run's). Goal: ratio ≤ 2 and peak RSS < 300 MB.
  */
 import { execFileSync } from 'node:child_process';
 import { mkdtempSync, rmSync, statSync } from 'node:fs';
@@ -29,24 +29,16 @@ import { composeGovernancePack } from '../../server/export/compose-governance-pa
 import { writeGovernanceWorkbook } from '../../server/export/governance-workbook';
 import { SITE_DATA_COLUMNS } from '../../server/export/site-data-sheet';
 import type { AuditSnapshot } from '../../server/services/audit-cycle.service';
+import { printBenchLine, ratioOf } from './support/bench-line';
+import { median } from './support/median';
+import { mulberry32 } from './support/mulberry32';
+import { peakRssMb } from './support/peak-rss';
 
 const ROWS = 100_000;
 const RUNS = 5;
 const GOAL_RATIO = 2;
 const RSS_LIMIT_MB = 300;
 const AS_OF = '2025-06-30';
-
-/** mulberry32 (Tommy Ettinger, public domain): small, fast, seedable. */
-function mulberry32(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4_294_967_296;
-  };
-}
 
 const random = mulberry32(20_250_301);
 const pick = <T>(items: readonly T[]): T => items[Math.floor(random() * items.length)];
@@ -115,12 +107,6 @@ const STANDARDS: StandardView[] = [
   standard(4, { criterion: 'Six-month recall attended', metric: 'recall-completion', intervalKey: '6m', comparator: '>=', target: 85 }),
 ];
 
-function median(values: number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  const middle = Math.floor(sorted.length / 2);
-  return sorted.length % 2 === 1 ? sorted[middle] : (sorted[middle - 1] + sorted[middle]) / 2;
-}
-
 /** One timed run in this process: prints { ms, rows, bytes, peakRssMb }. */
 async function runOnce(kind: 'floor' | 'pipeline', file: string): Promise<void> {
   const snapshot: AuditSnapshot = { dataset: syntheticDataset(), standards: STANDARDS, calibrationPairs: [] };
@@ -155,8 +141,7 @@ async function runOnce(kind: 'floor' | 'pipeline', file: string): Promise<void> 
     rows = pack.siteData.count;
   }
   const ms = performance.now() - start;
-  // maxRSS is reported in kilobytes.
-  console.log(JSON.stringify({ ms, rows, bytes: statSync(file).size, peakRssMb: Math.round(process.resourceUsage().maxRSS / 1024) }));
+  console.log(JSON.stringify({ ms, rows, bytes: statSync(file).size, peakRssMb: peakRssMb() }));
 }
 
 interface RunResult {
@@ -188,9 +173,21 @@ async function main(): Promise<void> {
     }
     const value = median(pipelines.map((result) => result.ms));
     const floorMedian = median(floors.map((result) => result.ms));
-    const ratio = Math.round((value / floorMedian) * 100) / 100;
-    const peakRssMb = Math.max(...pipelines.map((result) => result.peakRssMb));
-    console.log(JSON.stringify({ name: 'export-100k', value: Math.round(value), floor: Math.round(floorMedian), ratio, goal: GOAL_RATIO, unit: 'ms', peakRssMb, met: ratio <= GOAL_RATIO && peakRssMb < RSS_LIMIT_MB }));
+    const ratio = ratioOf(value, floorMedian);
+    const peakRss = Math.max(...pipelines.map((result) => result.peakRssMb));
+    printBenchLine({
+      name: 'export-100k',
+      value: Math.round(value),
+      floor: Math.round(floorMedian),
+      ratio,
+      goal: GOAL_RATIO,
+      unit: 'ms',
+      met: ratio !== null && ratio <= GOAL_RATIO && peakRss < RSS_LIMIT_MB,
+      criteria: 'ratio <= 2 and peak RSS < 300 MB',
+      rows: ROWS,
+      peakRssMb: peakRss,
+      floorPeakRssMb: Math.max(...floors.map((result) => result.peakRssMb)),
+    });
   } finally {
     rmSync(directory, { recursive: true, force: true });
   }

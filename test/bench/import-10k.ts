@@ -11,8 +11,8 @@
  *  (b) pipeline — ImportService.importFile on the CSV bytes: content sniffing, CSV parsing, the
  *      shared zod row schema on every row, the file-wide consistency checks, the database checks
  *      and the same inserts in one transaction.
- * Prints one JSON line: { name, value (pipeline ms), floor (ms), ratio, goal, unit, peakRssMb, met }
- * (medians of the timed runs). Goal: ratio ≤ 4 (and "seconds" for 10,000 rows).
+ * Prints one bench line (support/bench-line.ts): value = pipeline ms, floor = floor ms (medians of
+ * the timed runs), ratio, peakRssMb. Goal: ratio ≤ 4 (and "seconds" for 10,000 rows).
  */
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -25,6 +25,9 @@ import { openDatabase } from '../../server/data-source';
 import { ImportService } from '../../server/import/import.service';
 import { sqliteConnection } from '../../server/import/sqlite-connection';
 import { ScheduleService } from '../../server/services/schedule.service';
+import { printBenchLine, ratioOf } from './support/bench-line';
+import { median } from './support/median';
+import { peakRssMb } from './support/peak-rss';
 
 const CASES = 400;
 const TEETH = [11, 12, 13, 21, 22];
@@ -113,12 +116,6 @@ function bareInsert(file: string, cases: readonly BenchCase[], operatorId: numbe
   return rows;
 }
 
-function median(values: number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  const middle = Math.floor(sorted.length / 2);
-  return sorted.length % 2 === 1 ? sorted[middle] : (sorted[middle - 1] + sorted[middle]) / 2;
-}
-
 async function main(): Promise<void> {
   const directory = mkdtempSync(join(tmpdir(), 'tidemark-import-bench-'));
   try {
@@ -159,10 +156,19 @@ async function main(): Promise<void> {
     await seed.destroy();
     const value = median(pipelineMs);
     const floor = median(floorMs);
-    const ratio = Math.round((value / floor) * 100) / 100;
-    // maxRSS is reported in kilobytes.
-    const peakRssMb = Math.round(process.resourceUsage().maxRSS / 1024);
-    console.log(JSON.stringify({ name: 'import-10k', value: Math.round(value), floor: Math.round(floor), ratio, goal: GOAL_RATIO, unit: 'ms', peakRssMb, met: ratio <= GOAL_RATIO }));
+    const ratio = ratioOf(value, floor);
+    printBenchLine({
+      name: 'import-10k',
+      value: Math.round(value),
+      floor: Math.round(floor),
+      ratio,
+      goal: GOAL_RATIO,
+      unit: 'ms',
+      met: ratio !== null && ratio <= GOAL_RATIO,
+      criteria: 'ratio <= 4',
+      rows: 10_000,
+      peakRssMb: peakRssMb(),
+    });
   } finally {
     rmSync(directory, { recursive: true, force: true });
   }
