@@ -3,14 +3,14 @@ import { provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 import { Router, provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
-import type { SessionUser } from '@tidemark/shared';
+import type { SecondFactorState, SessionUser } from '@tidemark/shared';
 import { routes } from './app.routes';
 import { personWithRole, provideStubAuthSession } from './core/auth/testing/stub-auth-session';
 
-async function open(user: SessionUser | null, url: string): Promise<{ url: string; text: string }> {
+async function open(user: SessionUser | null, url: string, secondFactor: SecondFactorState = 'none'): Promise<{ url: string; text: string }> {
   TestBed.configureTestingModule({
     providers: [
-      provideStubAuthSession(user),
+      provideStubAuthSession(user, secondFactor),
       provideRouter(routes, withComponentInputBinding()),
       provideHttpClient(),
       provideHttpClientTesting(),
@@ -34,10 +34,22 @@ describe('app routes', () => {
     expect((await open(personWithRole('clinician'), '/team')).url).toBe('/today');
   });
 
-  it('shows an honest placeholder with the release that brings the page', async () => {
-    const page = await open(personWithRole('admin'), '/settings');
-    expect(page.url).toBe('/settings');
-    expect(page.text).toContain('Arrives with a later release.');
+  it('opens Settings to the administrator and keeps every other role out', async () => {
+    expect((await open(personWithRole('admin'), '/settings')).url).toBe('/settings');
+    TestBed.resetTestingModule();
+    expect((await open(personWithRole('audit_lead'), '/settings')).url).not.toBe('/settings');
+  });
+
+  it('opens Sign-in protection to every role', async () => {
+    expect((await open(personWithRole('governance'), '/account/security')).url).toBe('/account/security');
+  });
+
+  it('sends someone who must set up one-time codes from the root to Sign-in protection', async () => {
+    expect((await open(personWithRole('audit_lead'), '/', 'enrolment-required')).url).toBe('/account/security');
+  });
+
+  it('keeps someone who must set up one-time codes out of every other page', async () => {
+    expect((await open(personWithRole('admin'), '/team', 'enrolment-required')).url).toBe('/account/security');
   });
 
   it('sends unknown addresses home', async () => {

@@ -1,23 +1,13 @@
 import { inject } from '@angular/core';
-import { Route, Routes } from '@angular/router';
+import { Routes } from '@angular/router';
+import { ACCOUNT_SECURITY_PATH } from './core/auth/account-security-path';
 import { authGuard } from './core/auth/auth-guard';
 import { AuthSession } from './core/auth/auth-session';
+import { enrolmentGuard } from './core/auth/enrolment-guard';
 import { roleGuard } from './core/auth/role-guard';
 import { SIGN_IN_PATH } from './core/auth/sign-in-path';
 import { signedOutGuard } from './core/auth/signed-out-guard';
 import { homePathFor, rolesFor } from './core/shell/navigation';
-import type { ComingSoonData } from './shared/coming-soon/coming-soon';
-
-/** A page that is announced but not built yet, guarded like the real one will be. */
-function comingSoon(path: string, data: ComingSoonData): Route {
-  return {
-    path,
-    title: data.heading,
-    canActivate: [roleGuard(...rolesFor(`/${path}`))],
-    loadComponent: () => import('./shared/coming-soon/coming-soon').then((m) => m.ComingSoon),
-    data,
-  };
-}
 
 /** Top-level routes. Every page is lazy so the first download stays small. */
 export const routes: Routes = [
@@ -30,6 +20,8 @@ export const routes: Routes = [
   {
     path: '',
     canActivate: [authGuard],
+    // A role that must use one-time codes and has none yet sees only Sign-in protection.
+    canActivateChild: [enrolmentGuard],
     loadComponent: () => import('./core/shell/shell').then((m) => m.Shell),
     children: [
       {
@@ -103,11 +95,19 @@ export const routes: Routes = [
         canActivate: [roleGuard(...rolesFor('/outbox'))],
         loadChildren: () => import('./features/outbox/outbox.routes').then((m) => m.OUTBOX_ROUTES),
       },
-      comingSoon('settings', {
-        heading: 'Settings',
-        purpose: 'Settings will hold the practice-wide defaults new audits start from, such as the recall schedule and stability thresholds.',
-        release: 'Arrives with a later release.',
-      }),
+      {
+        // The signed-in person's own one-time codes: every role (reached from the person menu).
+        path: ACCOUNT_SECURITY_PATH.slice(1),
+        title: 'Sign-in protection',
+        loadChildren: () => import('./features/account-security/account-security.routes').then((m) => m.ACCOUNT_SECURITY_ROUTES),
+      },
+      {
+        // The installation overview and backups (administrator).
+        path: 'settings',
+        title: 'Settings',
+        canActivate: [roleGuard(...rolesFor('/settings'))],
+        loadChildren: () => import('./features/settings/settings.routes').then((m) => m.SETTINGS_ROUTES),
+      },
     ],
   },
   { path: '**', redirectTo: '' },

@@ -45,6 +45,31 @@ describe('AuthSession', () => {
     expect(session.user()?.role).toBe('audit_lead');
   });
 
+  it('keeps the app closed while a one-time code is due, and opens it once the code is accepted', async () => {
+    const signedIn = firstValueFrom(session.signIn({ email: 'lead@example.org', password: 'pw' }));
+    http.expectOne('/api/auth/login').flush({ user: personWithRole('audit_lead'), secondFactor: 'pending' });
+    await signedIn;
+    expect(session.user()?.role).toBe('audit_lead');
+    expect(session.isSignedIn()).toBe(false);
+    expect(session.isAwaitingCode()).toBe(true);
+
+    const verified = firstValueFrom(session.verifySecondFactor({ method: 'one-time-code', code: '123456' }));
+    const request = http.expectOne({ method: 'POST', url: '/api/auth/second-factor/verify' });
+    expect(request.request.body).toEqual({ method: 'one-time-code', code: '123456' });
+    request.flush({ user: personWithRole('audit_lead'), secondFactor: 'verified' });
+    await verified;
+    expect(session.isSignedIn()).toBe(true);
+    expect(session.secondFactor()).toBe('verified');
+  });
+
+  it('restores a session that still owes its code as not signed in', async () => {
+    const restored = session.restore();
+    http.expectOne('/api/auth/me').flush({ user: personWithRole('admin'), secondFactor: 'pending' });
+    await restored;
+    expect(session.isSignedIn()).toBe(false);
+    expect(session.isAwaitingCode()).toBe(true);
+  });
+
   it('passes a wrong password on to the form without retrying', async () => {
     const signedIn = firstValueFrom(session.signIn({ email: 'lead@example.org', password: 'nope' }));
     http

@@ -2,17 +2,17 @@ import { Component } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { Router, provideRouter } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
-import type { SessionUser } from '@tidemark/shared';
+import type { SecondFactorState, SessionUser } from '@tidemark/shared';
 import { signedOutGuard } from './signed-out-guard';
 import { personWithRole, provideStubAuthSession } from './testing/stub-auth-session';
 
 @Component({ template: '' })
 class BlankPage {}
 
-async function landingUrl(user: SessionUser | null): Promise<string> {
+async function landingUrl(user: SessionUser | null, secondFactor: SecondFactorState = 'none'): Promise<string> {
   TestBed.configureTestingModule({
     providers: [
-      provideStubAuthSession(user),
+      provideStubAuthSession(user, secondFactor),
       provideRouter([
         { path: 'sign-in', component: BlankPage, canActivate: [signedOutGuard] },
         { path: 'audits', component: BlankPage },
@@ -27,6 +27,10 @@ async function landingUrl(user: SessionUser | null): Promise<string> {
 describe('signedOutGuard', () => {
   it('shows the sign-in page to a signed-out visitor', async () => {
     expect(await landingUrl(null)).toBe('/sign-in');
+  });
+
+  it('shows the sign-in page (its code step) to someone whose one-time code is still due', async () => {
+    expect(await landingUrl(personWithRole('admin'), 'pending')).toBe('/sign-in');
   });
 
   it('sends someone already signed in to their home page', async () => {

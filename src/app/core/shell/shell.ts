@@ -4,6 +4,7 @@ import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatListModule } from '@angular/material/list';
+import { MatMenuModule } from '@angular/material/menu';
 import { MatSidenavModule } from '@angular/material/sidenav';
 import { MatToolbarModule } from '@angular/material/toolbar';
 import { MatTooltipModule } from '@angular/material/tooltip';
@@ -11,6 +12,7 @@ import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/rou
 import { ROLE_LABELS } from '@tidemark/shared';
 import { map } from 'rxjs';
 import { Wordmark } from '../../shared/wordmark/wordmark';
+import { ACCOUNT_SECURITY_PATH } from '../auth/account-security-path';
 import { AuthSession } from '../auth/auth-session';
 import { SIGN_IN_PATH } from '../auth/sign-in-path';
 import { ColorScheme } from '../theme/color-scheme';
@@ -27,6 +29,7 @@ export const NARROW_LAYOUT_QUERY = '(max-width: 1199.98px)';
     MatButtonModule,
     MatIconModule,
     MatListModule,
+    MatMenuModule,
     MatSidenavModule,
     MatToolbarModule,
     MatTooltipModule,
@@ -45,6 +48,7 @@ export class Shell {
   protected readonly colorScheme = inject(ColorScheme);
 
   protected readonly user = this.session.user;
+  protected readonly accountSecurityPath = ACCOUNT_SECURITY_PATH;
   protected readonly roleLabel = computed(() => {
     const user = this.user();
     return user ? ROLE_LABELS[user.role] : '';

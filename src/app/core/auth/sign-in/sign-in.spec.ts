@@ -6,7 +6,10 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatFormFieldHarness } from '@angular/material/form-field/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
+import { MatSlideToggleHarness } from '@angular/material/slide-toggle/testing';
 import { Router, provideRouter } from '@angular/router';
+import type { SecondFactorPolicy } from '@tidemark/shared';
+import { AuthSession } from '../auth-session';
 import { SignIn } from './sign-in';
 
 describe('SignIn', () => {
@@ -15,7 +18,8 @@ describe('SignIn', () => {
   let http: HttpTestingController;
   let router: Router;
 
-  beforeEach(async () => {
+  /** Renders the page; the server says whether one-time codes are required or only offered (demo). */
+  async function render(policy: SecondFactorPolicy): Promise<void> {
     TestBed.configureTestingModule({
       providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting()],
     });
@@ -23,7 +27,12 @@ describe('SignIn', () => {
     loader = TestbedHarnessEnvironment.loader(fixture);
     http = TestBed.inject(HttpTestingController);
     router = TestBed.inject(Router);
+    http.expectOne({ method: 'GET', url: '/api/auth/sign-in-options' }).flush({ secondFactorPolicy: policy });
     await fixture.whenStable();
+  }
+
+  beforeEach(async () => {
+    await render('required');
   });
 
   afterEach(() => http.verify());
@@ -126,5 +135,114 @@ describe('SignIn', () => {
   it('shows the caution sentence in the footer', () => {
     const footer: HTMLElement | null = fixture.nativeElement.querySelector('footer');
     expect(footer?.textContent).toContain('Not a diagnostic tool');
+  });
+  it('says nothing about demo mode when one-time codes are required', () => {
+    expect(fixture.nativeElement.querySelector('[role="note"]')).toBeNull();
+  });
+
+  describe('with one-time codes switched on', () => {
+    async function passPasswordStep(): Promise<void> {
+      await (await input('E-mail')).setValue('lead@example.org');
+      await (await input('Password')).setValue('a long passphrase');
+      await submit();
+      http.expectOne('/api/auth/login').flush({
+        user: { id: 2, email: 'lead@example.org', displayName: 'Lee', role: 'audit_lead' },
+        secondFactor: 'pending',
+      });
+      await fixture.whenStable();
+    }
+
+    async function continueButton(): Promise<MatButtonHarness> {
+      return loader.getHarness(MatButtonHarness.with({ text: 'Continue' }));
+    }
+
+    it('asks for the one-time code after the password instead of leaving the page', async () => {
+      const navigate = vi.spyOn(router, 'navigateByUrl').mockResolvedValue(true);
+      await passPasswordStep();
+      expect(navigate).not.toHaveBeenCalled();
+      expect(fixture.nativeElement.querySelector('h1')?.textContent).toContain('One more step');
+      expect(await loader.getAllHarnesses(MatFormFieldHarness.with({ floatingLabelText: 'Password' }))).toHaveLength(0);
+      expect(await (await input('One-time code')).getValue()).toBe('');
+    });
+
+    it('checks the code format before sending anything', async () => {
+      await passPasswordStep();
+      await (await input('One-time code')).setValue('12ab');
+      await (await continueButton()).click();
+      expect(await (await field('One-time code')).getTextErrors()).toEqual(['Enter the 6-digit code from your app.']);
+      http.expectNone('/api/auth/second-factor/verify');
+    });
+
+    it('sends the code and goes to the role home page once the server accepts it', async () => {
+      const navigate = vi.spyOn(router, 'navigateByUrl').mockResolvedValue(true);
+      await passPasswordStep();
+      await (await input('One-time code')).setValue('123 456');
+      await (await continueButton()).click();
+      const request = http.expectOne('/api/auth/second-factor/verify');
+      expect(request.request.body).toEqual({ method: 'one-time-code', code: '123 456' });
+      request.flush({ user: { id: 2, email: 'lead@example.org', displayName: 'Lee', role: 'audit_lead' }, secondFactor: 'verified' });
+      await fixture.whenStable();
+      expect(navigate).toHaveBeenCalledWith('/today');
+      expect(TestBed.inject(AuthSession).isSignedIn()).toBe(true);
+    });
+
+    it("shows the server's refusal under the code field", async () => {
+      await passPasswordStep();
+      await (await input('One-time code')).setValue('654321');
+      await (await continueButton()).click();
+      http.expectOne('/api/auth/second-factor/verify').flush(
+        { error: { code: 'second_factor_invalid', message: 'Not right.', fields: { code: 'That code is not right.' } } },
+        { status: 401, statusText: 'Unauthorized' },
+      );
+      await fixture.whenStable();
+      expect(await (await field('One-time code')).getTextErrors()).toEqual(['That code is not right.']);
+      expect(TestBed.inject(AuthSession).isSignedIn()).toBe(false);
+    });
+
+    it('switches to a recovery code and sends it as one', async () => {
+      vi.spyOn(router, 'navigateByUrl').mockResolvedValue(true);
+      await passPasswordStep();
+      await (await loader.getHarness(MatSlideToggleHarness.with({ label: /recovery code/ }))).check();
+      await (await input('Recovery code')).setValue('abcd-efgh-jkmn-pqrs-tvwx-yz01-2345');
+      await (await continueButton()).click();
+      const request = http.expectOne('/api/auth/second-factor/verify');
+      expect(request.request.body).toEqual({ method: 'recovery-code', code: 'abcd-efgh-jkmn-pqrs-tvwx-yz01-2345' });
+      request.flush({ user: { id: 2, email: 'lead@example.org', displayName: 'Lee', role: 'audit_lead' }, secondFactor: 'verified' });
+    });
+
+    it('starts over with the password, signing the half-finished session out', async () => {
+      await passPasswordStep();
+      await (await loader.getHarness(MatButtonHarness.with({ text: 'Start over with the password' }))).click();
+      http.expectOne({ method: 'POST', url: '/api/auth/logout' }).flush(null, { status: 204, statusText: 'No Content' });
+      http.expectOne('/api/auth/me').flush(null, { status: 401, statusText: 'Unauthorized' });
+      await fixture.whenStable();
+      expect(await (await input('Password')).getValue()).toBe('');
+      expect(fixture.nativeElement.querySelector('h1')?.textContent).toContain('Sign in');
+    });
+  });
+
+  it('sends an administrator who must set up one-time codes to Sign-in protection', async () => {
+    const navigate = vi.spyOn(router, 'navigateByUrl').mockResolvedValue(true);
+    await (await input('E-mail')).setValue('admin@example.org');
+    await (await input('Password')).setValue('a long passphrase');
+    await submit();
+    http.expectOne('/api/auth/login').flush({
+      user: { id: 1, email: 'admin@example.org', displayName: 'Ada', role: 'admin' },
+      secondFactor: 'enrolment-required',
+    });
+    await fixture.whenStable();
+    expect(navigate).toHaveBeenCalledWith('/account/security');
+  });
+});
+
+describe('SignIn in demo mode', () => {
+  it('says that one-time codes are offered but not required', async () => {
+    TestBed.configureTestingModule({ providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting()] });
+    const fixture = TestBed.createComponent(SignIn);
+    TestBed.inject(HttpTestingController).expectOne('/api/auth/sign-in-options').flush({ secondFactorPolicy: 'offered' });
+    await fixture.whenStable();
+    const note: HTMLElement | null = fixture.nativeElement.querySelector('[role="note"]');
+    expect(note?.textContent).toContain('Demo mode');
+    expect(note?.textContent).toContain('no role has to use them');
   });
 });

@@ -1,6 +1,6 @@
 import { HttpErrorResponse } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, DestroyRef, inject, input, signal } from '@angular/core';
-import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, signal } from '@angular/core';
+import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -9,13 +9,16 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { Router } from '@angular/router';
 import { loginSchema, type SessionUser } from '@tidemark/shared';
+import { catchError, of } from 'rxjs';
 import { ClinicalCaution } from '../../../shared/clinical-caution/clinical-caution';
 import { SERVER_ERROR, fieldMessage, zodValidator } from '../../../shared/forms/zod-validator';
 import { Wordmark } from '../../../shared/wordmark/wordmark';
 import { apiErrorDetails } from '../../http/api-error-details';
 import { describeHttpError } from '../../http/describe-http-error';
 import { homePathFor } from '../../shell/navigation';
+import { ACCOUNT_SECURITY_PATH } from '../account-security-path';
 import { AuthSession } from '../auth-session';
+import { CodeStep } from '../code-step/code-step';
 import { SIGN_IN_PATH } from '../sign-in-path';
 
 /** The sign-in form's controls. */
@@ -24,7 +27,10 @@ interface SignInForm {
   password: FormControl<string>;
 }
 
-/** The sign-in page: e-mail and password, with the server's answer shown inline. */
+/**
+ * The sign-in page: e-mail and password, then, for people with one-time codes switched on,
+ * the code step. The server's answers are shown inline.
+ */
 @Component({
   selector: 'tm-sign-in',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -36,6 +42,7 @@ interface SignInForm {
     MatInputModule,
     MatProgressSpinnerModule,
     ClinicalCaution,
+    CodeStep,
     Wordmark,
   ],
   templateUrl: './sign-in.html',
@@ -60,6 +67,12 @@ export class SignIn {
   protected readonly failure = signal<string | null>(null);
   protected readonly fieldMessage = fieldMessage;
 
+  /** The password was right and a code is due (also after a reload half-way through). */
+  protected readonly isAwaitingCode = this.session.isAwaitingCode;
+  private readonly signInOptions = toSignal(this.session.signInOptions().pipe(catchError(() => of(null))), { initialValue: null });
+  /** Demo mode: one-time codes are offered to everyone but required of no one. */
+  protected readonly isSecondFactorOptional = computed(() => this.signInOptions()?.secondFactorPolicy === 'offered');
+
   protected togglePasswordVisibility(): void {
     this.isPasswordVisible.update((visible) => !visible);
   }
@@ -78,12 +91,31 @@ export class SignIn {
       .signIn(this.form.getRawValue())
       .pipe(takeUntilDestroyed(this.destroyRef))
       .subscribe({
-        next: (user) => void this.router.navigateByUrl(this.destinationFor(user)),
+        next: (user) => {
+          // With one-time codes on, the page now shows the code step instead of leaving.
+          if (this.session.isAwaitingCode()) {
+            this.isSubmitting.set(false);
+            return;
+          }
+          void this.router.navigateByUrl(this.destinationFor(user));
+        },
         error: (error: unknown) => {
           this.isSubmitting.set(false);
           this.showFailure(error);
         },
       });
+  }
+
+  protected finishSignIn(user: SessionUser): void {
+    void this.router.navigateByUrl(this.destinationFor(user));
+  }
+
+  /** Leaves the half-finished sign-in on the server too, and shows the password step again. */
+  protected startOver(): void {
+    this.session
+      .signOut()
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe(() => this.form.controls.password.reset(''));
   }
 
   private showFailure(error: unknown): void {
@@ -105,8 +137,14 @@ export class SignIn {
     this.failure.set(isServerWordingBest && details ? details.message : describeHttpError(error));
   }
 
-  /** The `returnUrl` if it is a page of this app (never another site), else the role's home. */
+  /**
+   * Sign-in protection when the role must set up one-time codes first; otherwise the
+   * `returnUrl` if it is a page of this app (never another site), else the role's home.
+   */
   private destinationFor(user: SessionUser): string {
+    if (this.session.secondFactor() === 'enrolment-required') {
+      return ACCOUNT_SECURITY_PATH;
+    }
     const requested = this.returnUrl();
     const isLocalPath = !!requested && requested.startsWith('/') && !requested.startsWith('//');
     return isLocalPath && !requested.startsWith(SIGN_IN_PATH) ? requested : homePathFor(user.role);
