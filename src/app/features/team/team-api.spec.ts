@@ -14,6 +14,7 @@ const member: UserView = {
   active: true,
   createdAt: '2026-01-05T09:00:00.000Z',
   lastSignInAt: null,
+  secondFactorEnabled: true,
 };
 
 describe('TeamApi', () => {
@@ -55,6 +56,32 @@ describe('TeamApi', () => {
     expect(request.request.context.get(SHOWS_OWN_ERRORS)).toBe(false);
     request.flush({ ...member, active: false });
     expect((await result).active).toBe(false);
+  });
+
+  it('renames and sets a password with PATCH /api/users/:id, each sending only its field and showing its own errors', async () => {
+    const renamed = firstValueFrom(api.rename(7, 'Rowan Hale-Park'));
+    const rename = http.expectOne('/api/users/7');
+    expect(rename.request.method).toBe('PATCH');
+    expect(rename.request.body).toEqual({ displayName: 'Rowan Hale-Park' });
+    expect(rename.request.context.get(SHOWS_OWN_ERRORS)).toBe(true);
+    rename.flush({ ...member, displayName: 'Rowan Hale-Park' });
+    expect((await renamed).displayName).toBe('Rowan Hale-Park');
+
+    const reset = firstValueFrom(api.setPassword(7, 'a new long passphrase'));
+    const password = http.expectOne('/api/users/7');
+    expect(password.request.method).toBe('PATCH');
+    expect(password.request.body).toEqual({ password: 'a new long passphrase' });
+    expect(password.request.context.get(SHOWS_OWN_ERRORS)).toBe(true);
+    password.flush(member);
+    expect((await reset).id).toBe(7);
+  });
+
+  it("resets a member's sign-in protection with DELETE /api/users/:id/second-factor", async () => {
+    const result = firstValueFrom(api.resetSecondFactor(7));
+    const request = http.expectOne('/api/users/7/second-factor');
+    expect(request.request.method).toBe('DELETE');
+    request.flush(null, { status: 204, statusText: 'No Content' });
+    await expect(result).resolves.toBeNull();
   });
 
   it('passes a conflict on to the caller', async () => {

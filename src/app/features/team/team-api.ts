@@ -26,4 +26,25 @@ export class TeamApi {
   update(id: number, changes: UserUpdateRequest): Observable<UserView> {
     return this.http.patch<UserView>(`/api/users/${encodeURIComponent(id)}`, changes);
   }
+
+  /** Changes the name the team sees; the rename dialog shows its own errors. */
+  rename(id: number, displayName: string): Observable<UserView> {
+    return this.http.patch<UserView>(`/api/users/${encodeURIComponent(id)}`, { displayName }, { context: showsOwnErrors() });
+  }
+
+  /**
+   * Sets a new password, which ends the member's sessions everywhere. The dialog shows the
+   * server's refusals (e.g. a common password) under its field.
+   */
+  setPassword(id: number, password: string): Observable<UserView> {
+    return this.http.patch<UserView>(`/api/users/${encodeURIComponent(id)}`, { password }, { context: showsOwnErrors() });
+  }
+
+  /**
+   * Removes a member's one-time and recovery codes (a lost phone) and ends their sessions;
+   * they set codes up again at their next sign-in if their role requires them. Not for oneself (409).
+   */
+  resetSecondFactor(id: number): Observable<void> {
+    return this.http.delete<void>(`/api/users/${encodeURIComponent(id)}/second-factor`);
+  }
 }

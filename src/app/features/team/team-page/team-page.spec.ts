@@ -22,6 +22,7 @@ const TEAM: UserView[] = [
     active: true,
     createdAt: '2026-01-02T08:00:00.000Z',
     lastSignInAt: '2026-03-04T09:15:00.000Z',
+    secondFactorEnabled: true,
   },
   {
     id: 2,
@@ -31,6 +32,7 @@ const TEAM: UserView[] = [
     active: false,
     createdAt: '2026-01-03T08:00:00.000Z',
     lastSignInAt: null,
+    secondFactorEnabled: false,
   },
   {
     id: 3,
@@ -40,6 +42,7 @@ const TEAM: UserView[] = [
     active: true,
     createdAt: '2026-01-04T08:00:00.000Z',
     lastSignInAt: '2026-03-01T10:00:00.000Z',
+    secondFactorEnabled: true,
   },
 ];
 
@@ -122,6 +125,81 @@ describe('TeamPage', () => {
     request.flush({ ...TEAM[2], active: false });
     await fixture.whenStable();
     expect((await column('status'))[0]).toContain('Inactive');
+  });
+
+  /** Opens a member's row menu. */
+  async function rowMenu(name: string): Promise<MatMenuHarness> {
+    await (await loader.getHarness(MatButtonHarness.with({ selector: `[aria-label="Actions for ${name}"]` }))).click();
+    return documentLoader.getHarness(MatMenuHarness.with({ selector: `[aria-label="Actions for ${name}"]` }));
+  }
+
+  async function menuItems(name: string): Promise<string[]> {
+    const menu = await rowMenu(name);
+    const items = await Promise.all((await menu.getItems()).map((item) => item.getText()));
+    await menu.close();
+    return items;
+  }
+
+  it('shows whether each member signs in with one-time codes, as icon and words', async () => {
+    expect(await column('protection')).toEqual(['verified_userCodes on', 'keyPassword only', 'verified_userCodes on']);
+  });
+
+  it('offers a reset of sign-in protection only for others whose codes are on', async () => {
+    expect(await menuItems('Aiko Sato')).toEqual(expect.arrayContaining([expect.stringContaining('Reset sign-in protection')]));
+    expect((await menuItems('Bram Lind')).some((item) => item.includes('Reset sign-in protection'))).toBe(false);
+    const own = await menuItems('Ines Okafor');
+    expect(own.some((item) => item.includes('Reset sign-in protection'))).toBe(false);
+    expect(own.some((item) => item.includes('Set a new password'))).toBe(false);
+    expect(own.some((item) => item.includes('Rename'))).toBe(true);
+  });
+
+  it('resets sign-in protection only after a confirmation that says what follows', async () => {
+    await (await rowMenu('Aiko Sato')).clickItem({ text: /Reset sign-in protection/ });
+    const dialog = await documentLoader.getHarness(MatDialogHarness);
+    expect(await dialog.getTitleText()).toContain('Reset sign-in protection for Aiko Sato?');
+    const text = await dialog.getContentText();
+    expect(text).toContain('signed out on every device');
+    expect(text).toContain('set up one-time codes again');
+    http.expectNone('/api/users/3/second-factor');
+
+    await (await dialog.getHarness(MatButtonHarness.with({ text: 'Reset sign-in protection' }))).click();
+    await fixture.whenStable();
+    const request = http.expectOne('/api/users/3/second-factor');
+    expect(request.request.method).toBe('DELETE');
+    request.flush(null, { status: 204, statusText: 'No Content' });
+    await fixture.whenStable();
+    expect((await column('protection'))[0]).toContain('Password only');
+  });
+
+  it('leaves sign-in protection as it was when the reset is cancelled', async () => {
+    await (await rowMenu('Aiko Sato')).clickItem({ text: /Reset sign-in protection/ });
+    const dialog = await documentLoader.getHarness(MatDialogHarness);
+    await (await dialog.getHarness(MatButtonHarness.with({ text: 'Cancel' }))).click();
+    await fixture.whenStable();
+    http.expectNone('/api/users/3/second-factor');
+    expect((await column('protection'))[0]).toContain('Codes on');
+  });
+
+  it('renames a member through the rename dialog and shows the new name in the list', async () => {
+    await (await rowMenu('Bram Lind')).clickItem({ text: /Rename/ });
+    const dialog = await documentLoader.getHarness(MatDialogHarness);
+    expect(await dialog.getTitleText()).toBe('Rename Bram Lind');
+    const input = await dialog.getHarness(MatInputHarness);
+    await input.setValue('Dr Bram Lind');
+    await (await dialog.getHarness(MatButtonHarness.with({ text: 'Save name' }))).click();
+    const request = http.expectOne('/api/users/2');
+    expect(request.request.body).toEqual({ displayName: 'Dr Bram Lind' });
+    request.flush({ ...TEAM[1], displayName: 'Dr Bram Lind' });
+    await fixture.whenStable();
+    expect(await column('name')).toEqual(['Aiko Sato', 'Dr Bram Lind', 'Ines Okafor (you)']);
+  });
+
+  it('opens the new-password dialog for another member', async () => {
+    await (await rowMenu('Aiko Sato')).clickItem({ text: /Set a new password/ });
+    const dialog = await documentLoader.getHarness(MatDialogHarness);
+    expect(await dialog.getTitleText()).toBe('New password for Aiko Sato');
+    await (await dialog.getHarness(MatButtonHarness.with({ text: 'Cancel' }))).click();
+    http.expectNone('/api/users/3');
   });
 
   it('changes nothing when the confirmation is cancelled', async () => {

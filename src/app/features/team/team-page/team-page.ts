@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, DestroyRef, effect, inject, signal, viewChild } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -17,18 +16,23 @@ import { filter } from 'rxjs';
 import { AuthSession } from '../../../core/auth/auth-session';
 import { AddMemberDialog } from '../add-member-dialog/add-member-dialog';
 import { MemberStatus } from '../member-status/member-status';
+import { MemberPasswordDialog } from '../member-password-dialog/member-password-dialog';
+import { MemberProtection } from '../member-protection/member-protection';
+import { RenameMemberDialog } from '../rename-member-dialog/rename-member-dialog';
+import { ConfirmDialog, type ConfirmDialogData } from '../../../shared/confirm-dialog/confirm-dialog';
 import { StatusChangeDialog, StatusChangeRequest } from '../status-change-dialog/status-change-dialog';
 import { TeamApi } from '../team-api';
+import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 
 /** Columns of the team table, in order. */
-const COLUMNS = ['name', 'email', 'role', 'status', 'lastSignIn', 'actions'] as const;
+const COLUMNS = ['name', 'email', 'role', 'status', 'protection', 'lastSignIn', 'actions'] as const;
 
 /** Team: who may sign in, with which role (admin only). */
 @Component({
   selector: 'tm-team-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
-    DatePipe,
+    LocalDatePipe,
     MatButtonModule,
     MatFormFieldModule,
     MatIconModule,
@@ -38,6 +42,7 @@ const COLUMNS = ['name', 'email', 'role', 'status', 'lastSignIn', 'actions'] as 
     MatProgressBarModule,
     MatSortModule,
     MatTableModule,
+    MemberProtection,
     MemberStatus,
   ],
   templateUrl: './team-page.html',
@@ -139,6 +144,74 @@ export class TeamPage {
       );
   }
 
+  protected openRename(member: UserView): void {
+    this.dialog
+      .open<RenameMemberDialog, UserView, UserView>(RenameMemberDialog, { data: member, autoFocus: 'first-tabbable', maxWidth: '560px' })
+      .afterClosed()
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe((updated) => {
+        if (updated) {
+          this.replaceMember(updated);
+          this.snackBar.open(`${member.displayName} is now shown as ${updated.displayName}.`, 'OK', { duration: 6000 });
+        }
+      });
+  }
+
+  protected openPasswordReset(member: UserView): void {
+    this.dialog
+      .open<MemberPasswordDialog, UserView, UserView>(MemberPasswordDialog, { data: member, autoFocus: 'first-tabbable', maxWidth: '560px' })
+      .afterClosed()
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe((updated) => {
+        if (updated) {
+          this.replaceMember(updated);
+          this.snackBar.open(`${updated.displayName} has a new password and was signed out everywhere.`, 'OK', { duration: 8000 });
+        }
+      });
+  }
+
+  /** A lost or replaced phone: after confirmation, removes the member's one-time and recovery codes and ends their sessions. */
+  protected confirmSecondFactorReset(member: UserView): void {
+    const data: ConfirmDialogData = {
+      title: `Reset sign-in protection for ${member.displayName}?`,
+      paragraphs: [
+        `The one-time codes from ${member.displayName}'s authenticator app and their recovery codes stop working at once, and they are signed out on every device.`,
+        'At their next sign-in they use their password, then set up one-time codes again with their app. Where their role requires codes, Tidemark asks for this before anything else.',
+        'Do this when a phone is lost or replaced, or when you suspect someone else has their codes.',
+      ],
+      confirmLabel: 'Reset sign-in protection',
+      icon: 'phonelink_erase',
+    };
+    this.dialog
+      .open<ConfirmDialog, ConfirmDialogData, boolean>(ConfirmDialog, { data, maxWidth: '560px' })
+      .afterClosed()
+      .pipe(
+        filter((confirmed) => confirmed === true),
+        takeUntilDestroyed(this.destroyRef),
+      )
+      .subscribe(() => this.resetSecondFactor(member));
+  }
+
+  private resetSecondFactor(member: UserView): void {
+    this.savingMemberId.set(member.id);
+    this.teamApi
+      .resetSecondFactor(member.id)
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({
+        next: () => {
+          this.replaceMember({ ...member, secondFactorEnabled: false });
+          this.savingMemberId.set(null);
+          this.snackBar.open(`${member.displayName}'s sign-in protection was reset. They set it up again at their next sign-in.`, 'OK', { duration: 8000 });
+        },
+        // The error notice says why; the row is unchanged.
+        error: () => this.savingMemberId.set(null),
+      });
+  }
+
+  private replaceMember(updated: UserView): void {
+    this.members.data = this.members.data.map((row) => (row.id === updated.id ? updated : row));
+  }
+
   private saveChange(member: UserView, changes: UserUpdateRequest, confirmation: string): void {
     this.savingMemberId.set(member.id);
     this.teamApi
@@ -167,6 +240,8 @@ function sortKey(member: UserView, column: string): string | number {
       return ROLE_LABELS[member.role];
     case 'status':
       return member.active ? 0 : 1;
+    case 'protection':
+      return member.secondFactorEnabled ? 0 : 1;
     case 'lastSignIn':
       return member.lastSignInAt ? Date.parse(member.lastSignInAt) : 0;
     default:
@@ -176,6 +251,6 @@ function sortKey(member: UserView, column: string): string | number {
 
 /** Free-text filter over name, e-mail, role label and status word. */
 function matchesFilter(member: UserView, filterText: string): boolean {
-  const words = [member.displayName, member.email, ROLE_LABELS[member.role], member.active ? 'active' : 'inactive'];
+  const words = [member.displayName, member.email, ROLE_LABELS[member.role], member.active ? 'active' : 'inactive', member.secondFactorEnabled ? 'codes on' : 'password only'];
   return words.some((word) => word.toLocaleLowerCase().includes(filterText));
 }

@@ -1,0 +1,169 @@
+import { HttpErrorResponse } from '@angular/common/http';
+import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { AbstractControl, FormControl, FormGroup, ReactiveFormsModule, ValidationErrors } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH, passwordSchema, type UserView } from '@tidemark/shared';
+import { apiErrorDetails } from '../../../core/http/api-error-details';
+import { describeHttpError } from '../../../core/http/describe-http-error';
+import { SCHEMA_ERROR, SERVER_ERROR, fieldMessage, zodValidator } from '../../../shared/forms/zod-validator';
+import { TeamApi } from '../team-api';
+
+/** The new-password form's controls. */
+interface PasswordForm {
+  password: FormControl<string>;
+  repeat: FormControl<string>;
+}
+
+/** Said when the second entry differs from the first. */
+export const PASSWORDS_DIFFER = 'The two entries differ. Type the same password twice.';
+
+/** The repeat field matches the password field beside it. */
+function matchesPassword(control: AbstractControl<string>): ValidationErrors | null {
+  const password: unknown = control.parent?.get('password')?.value;
+  return control.value === '' || control.value === password ? null : { [SCHEMA_ERROR]: PASSWORDS_DIFFER };
+}
+
+/**
+ * Sets a new password for a member (forgotten password, or one that may have leaked). Closes
+ * with the member once saved, or undefined when cancelled. The rules are those of
+ * `shared/schemas/user.ts` and the server's common-password check (server/auth/common-passwords.ts).
+ */
+@Component({
+  selector: 'tm-member-password-dialog',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  imports: [ReactiveFormsModule, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule],
+  template: `
+    <h2 mat-dialog-title>New password for {{ member.displayName }}</h2>
+    <form [formGroup]="form" (ngSubmit)="savePassword()" novalidate>
+      <mat-dialog-content class="fields">
+        <p class="intro">
+          Saving signs {{ member.displayName }} out on every device. Give them the new password privately, in person or by phone.
+        </p>
+        <ul class="rules" id="password-rules">
+          <li>At least {{ minLength }} characters, at most {{ maxLength }}. A few unrelated words make a strong one.</li>
+          <li>Passwords on a list of commonly used ones are refused.</li>
+        </ul>
+        <mat-form-field appearance="outline" subscriptSizing="dynamic">
+          <mat-label>New password</mat-label>
+          <input
+            matInput
+            formControlName="password"
+            [type]="isPasswordVisible() ? 'text' : 'password'"
+            autocomplete="new-password"
+            aria-describedby="password-rules"
+            cdkFocusInitial
+          />
+          <button
+            mat-icon-button
+            matSuffix
+            type="button"
+            (click)="togglePasswordVisibility()"
+            [attr.aria-label]="isPasswordVisible() ? 'Hide password' : 'Show password'"
+            [attr.aria-pressed]="isPasswordVisible()"
+          >
+            <mat-icon aria-hidden="true">{{ isPasswordVisible() ? 'visibility_off' : 'visibility' }}</mat-icon>
+          </button>
+          <mat-hint>At least {{ minLength }} characters.</mat-hint>
+          @if (fieldMessage(form.controls.password); as message) {
+            <mat-error>{{ message }}</mat-error>
+          }
+        </mat-form-field>
+        <mat-form-field appearance="outline" subscriptSizing="dynamic">
+          <mat-label>Type it again</mat-label>
+          <input matInput formControlName="repeat" [type]="isPasswordVisible() ? 'text' : 'password'" autocomplete="new-password" />
+          @if (fieldMessage(form.controls.repeat); as message) {
+            <mat-error>{{ message }}</mat-error>
+          }
+        </mat-form-field>
+        <div class="failure" role="alert">
+          @if (failure(); as message) {
+            <mat-icon aria-hidden="true">error</mat-icon>
+            <span>{{ message }}</span>
+          }
+        </div>
+      </mat-dialog-content>
+      <mat-dialog-actions align="end">
+        <button mat-button type="button" mat-dialog-close>Cancel</button>
+        <button mat-flat-button type="submit" [disabled]="isSaving()">Set password</button>
+      </mat-dialog-actions>
+    </form>
+  `,
+  styleUrl: '../member-dialog.scss',
+})
+export class MemberPasswordDialog {
+  private readonly teamApi = inject(TeamApi);
+  private readonly dialogRef = inject<MatDialogRef<MemberPasswordDialog, UserView>>(MatDialogRef);
+  private readonly destroyRef = inject(DestroyRef);
+
+  /** Whose password is set. */
+  protected readonly member = inject<UserView>(MAT_DIALOG_DATA);
+  protected readonly minLength = PASSWORD_MIN_LENGTH;
+  protected readonly maxLength = PASSWORD_MAX_LENGTH;
+  protected readonly fieldMessage = fieldMessage;
+
+  protected readonly form = new FormGroup<PasswordForm>({
+    password: new FormControl('', { nonNullable: true, validators: zodValidator(passwordSchema) }),
+    repeat: new FormControl('', { nonNullable: true, validators: matchesPassword }),
+  });
+
+  protected readonly isSaving = signal(false);
+  protected readonly isPasswordVisible = signal(false);
+  /** A failure that belongs to no field. */
+  protected readonly failure = signal<string | null>(null);
+
+  constructor() {
+    // The repeat field's check depends on the first field: look again whenever that changes.
+    this.form.controls.password.valueChanges
+      .pipe(takeUntilDestroyed())
+      .subscribe(() => this.form.controls.repeat.updateValueAndValidity({ emitEvent: false }));
+  }
+
+  protected togglePasswordVisibility(): void {
+    this.isPasswordVisible.update((isVisible) => !isVisible);
+  }
+
+  protected savePassword(): void {
+    if (this.isSaving()) return;
+    this.failure.set(null);
+    const { repeat } = this.form.controls;
+    if (repeat.value === '') {
+      repeat.setErrors({ [SCHEMA_ERROR]: 'Type the new password a second time.' });
+    }
+    if (this.form.invalid) {
+      this.form.markAllAsTouched();
+      return;
+    }
+    this.isSaving.set(true);
+    this.teamApi
+      .setPassword(this.member.id, this.form.controls.password.value)
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({
+        next: (updated) => this.dialogRef.close(updated),
+        error: (error: unknown) => {
+          this.isSaving.set(false);
+          this.showFailure(error);
+        },
+      });
+  }
+
+  private showFailure(error: unknown): void {
+    if (!(error instanceof HttpErrorResponse)) {
+      this.failure.set('The password could not be saved. Try again.');
+      return;
+    }
+    // The server's common-password refusal arrives as a field error on `password`.
+    const message = apiErrorDetails(error)?.fields?.['password'];
+    if (message) {
+      const control = this.form.controls.password;
+      control.setErrors({ ...control.errors, [SERVER_ERROR]: message });
+      control.markAsTouched();
+      return;
+    }
+    this.failure.set(describeHttpError(error));
+  }
+}
