@@ -3,6 +3,7 @@ import ExcelJS from 'exceljs';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { RESULTS_DIR, launchBrowser } from './support/browser';
 import { startServer, type RunningServer } from './support/server';
+import { signIn } from './support/sign-in';
 import { screenshotWholePage } from './support/whole-page-screenshot';
 
 /** The demo audit the seed creates, with a reported (frozen) first cycle (server/demo/seed-demo-audits.ts). */
@@ -21,15 +22,6 @@ function watchProblems(page: Page): string[] {
   });
   page.on('pageerror', (error) => problems.push(error.message));
   return problems;
-}
-
-async function signIn(page: Page, baseUrl: string, email: string): Promise<void> {
-  await page.goto(baseUrl);
-  await page.waitForURL(/\/sign-in/);
-  await page.getByLabel('E-mail', { exact: true }).fill(email);
-  await page.getByRole('textbox', { name: 'Password' }).fill('tidemark-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('navigation', { name: 'Main navigation' }).getByRole('link').first().waitFor();
 }
 
 /** Opens a Material select from the keyboard (its floating label covers it for the mouse) and picks an option. */

@@ -2,6 +2,7 @@ import type { Browser, BrowserContext, Locator, Page } from 'playwright-core';
 import type { CaseDetail, RecallDueList } from '@tidemark/shared';
 import { launchBrowser } from './support/browser';
 import { startServer, type RunningServer } from './support/server';
+import { DEMO_ACCOUNTS, signIn } from './support/sign-in';
 import { screenshotWholePage } from './support/whole-page-screenshot';
 
 /** Reads a "10.0 mm" cell as a number (null for a dash). */
@@ -21,11 +22,7 @@ function watchProblems(page: Page): string[] {
 }
 
 async function signInAsClinician(page: Page, baseUrl: string): Promise<void> {
-  await page.goto(baseUrl);
-  await page.waitForURL(/\/sign-in/);
-  await page.getByLabel('E-mail', { exact: true }).fill('clinician@example.org');
-  await page.getByRole('textbox', { name: 'Password' }).fill('tidemark-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
+  await signIn(page, baseUrl, DEMO_ACCOUNTS.clinician);
   await page.waitForURL(/\/today$/);
 }
 

@@ -2,6 +2,7 @@ import type { Browser } from 'playwright-core';
 import type { Role } from '@tidemark/shared';
 import { launchBrowser, screenshotPath } from './support/browser';
 import { startServer, type RunningServer } from './support/server';
+import { DEMO_ACCOUNTS, submitSignIn } from './support/sign-in';
 
 /** Navigation each role must see — DESIGN.md §2 (capabilities) and §5 (screens). */
 const EXPECTED_NAVIGATION: Record<Role, string[]> = {
@@ -10,13 +11,6 @@ const EXPECTED_NAVIGATION: Record<Role, string[]> = {
   clinician: ['Today', 'Cases', 'Audits', 'Change history'],
   partner: ['Cases', 'Audits', 'Reports', 'Change history'],
   governance: ['Audits', 'Reports'],
-};
-const ACCOUNTS: Record<Role, string> = {
-  admin: 'admin@example.org',
-  audit_lead: 'lead@example.org',
-  clinician: 'clinician@example.org',
-  partner: 'partner@example.org',
-  governance: 'governance@example.org',
 };
 
 describe('sign-in journey in Chromium', () => {
@@ -46,9 +40,7 @@ describe('sign-in journey in Chromium', () => {
       await page.goto(server.baseUrl);
       await page.waitForURL(/\/sign-in/);
       if (role === 'admin') await page.screenshot({ path: screenshotPath('sign-in'), fullPage: true });
-      await page.getByLabel('E-mail', { exact: true }).fill(ACCOUNTS[role]);
-      await page.getByRole('textbox', { name: 'Password' }).fill('tidemark-demo');
-      await page.getByRole('button', { name: 'Sign in' }).click();
+      await submitSignIn(page, DEMO_ACCOUNTS[role]);
 
       const nav = page.getByRole('navigation', { name: 'Main navigation' });
       await nav.getByRole('link').first().waitFor();
@@ -67,9 +59,7 @@ describe('sign-in journey in Chromium', () => {
   it('shows the server’s message for a wrong password', async () => {
     const page = await browser.newPage();
     await page.goto(`${server.baseUrl}/sign-in`);
-    await page.getByLabel('E-mail', { exact: true }).fill('lead@example.org');
-    await page.getByRole('textbox', { name: 'Password' }).fill('not-the-password');
-    await page.getByRole('button', { name: 'Sign in' }).click();
+    await submitSignIn(page, DEMO_ACCOUNTS.audit_lead, 'not-the-password');
     await expect(page.getByRole('alert').first().innerText()).resolves.toMatch(/not right/);
     await page.screenshot({ path: screenshotPath('sign-in-failed'), fullPage: true });
     await page.close();

@@ -17,6 +17,7 @@ import type {
   OperatorView,
   ReviewNoteCreateRequest,
   ReviewNoteView,
+  ScheduleCreateRequest,
   ScheduleView,
   StandardCreateRequest,
   StandardUpdateRequest,
@@ -72,7 +73,12 @@ export class AuditsApi {
     return this.http.get<ScheduleView[]>('/api/schedules');
   }
 
-  /** Clinicians and audit leads, for cohort filters and action owners. */
+  /** Adds a recall schedule (audit lead); the scope form then offers it. */
+  createSchedule(schedule: ScheduleCreateRequest): Observable<ScheduleView> {
+    return this.http.post<ScheduleView>('/api/schedules', schedule, { context: showsOwnErrors() });
+  }
+
+    /** Clinicians and audit leads, for cohort filters and action owners. */
   operators(): Observable<OperatorView[]> {
     return this.http.get<OperatorView[]>('/api/operators');
   }

@@ -1,4 +1,3 @@
-import { formatDate } from '@angular/common';
 import {
   DIABETES_LABELS,
   INDICATION_LABELS,
@@ -8,6 +7,7 @@ import {
   SMOKING_LABELS,
   type CohortDefinition,
 } from '@tidemark/shared';
+import { formatLocalDate } from '../../shared/dates/local-date';
 
 /** One filter of a cohort in words: what it is about, and what it keeps. */
 export interface CohortClause {
@@ -26,7 +26,7 @@ export type OperatorNaming = { readonly names: ReadonlyMap<number, string> } | {
  * No clause at all means every case in the practice.
  */
 export function describeCohort(cohort: CohortDefinition, naming: OperatorNaming, locale: string): CohortClause[] {
-  const date = (value: string): string => formatDate(value, 'd MMM y', locale);
+  const date = (value: string): string => formatLocalDate(value, 'date', locale);
   const list = (words: readonly string[]): string => words.join(', ');
   const clauses: CohortClause[] = [];
   if (cohort.surgeryFrom && cohort.surgeryTo) {

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, output } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -14,12 +13,13 @@ import { AuditsApi } from '../audits-api';
 import { failureSentence } from '../failure-sentence';
 import { ActionStateBadge, isActionOverdue } from '../badges/action-state-badge';
 import { OverdueMarker } from '../badges/overdue-marker';
+import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 
 /** A cycle's action plan: action, owner, due date and state, with overdue actions marked. */
 @Component({
   selector: 'tm-action-plan',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [ActionStateBadge, DatePipe, MatButtonModule, MatIconModule, MatTableModule, OverdueMarker],
+  imports: [ActionStateBadge, LocalDatePipe, MatButtonModule, MatIconModule, MatTableModule, OverdueMarker],
   template: `
     <div class="head">
       <h4>Action plan</h4>
@@ -31,7 +31,7 @@ import { OverdueMarker } from '../badges/overdue-marker';
       }
     </div>
     @if (rows().length === 0) {
-      <p class="empty">No actions agreed for this cycle yet.</p>
+      <p class="empty">No actions agreed for this cycle yet.{{ canWrite() ? ' Record what the team agreed with Add action.' : '' }}</p>
     } @else {
       <div class="frame">
         <table mat-table [dataSource]="rows()" [attr.aria-label]="'Action plan of cycle ' + cycle().number">
@@ -45,7 +45,7 @@ import { OverdueMarker } from '../badges/overdue-marker';
           </ng-container>
           <ng-container matColumnDef="due">
             <th mat-header-cell *matHeaderCellDef>Due by</th>
-            <td mat-cell *matCellDef="let row" class="nowrap">{{ row.action.dueDate | date: 'd MMM y' }}</td>
+            <td mat-cell *matCellDef="let row" class="nowrap">{{ row.action.dueDate | localDate }}</td>
           </ng-container>
           <ng-container matColumnDef="state">
             <th mat-header-cell *matHeaderCellDef>State</th>

@@ -34,7 +34,7 @@ describe('AuditList', () => {
     await open(personWithRole('partner'));
     expect(cards()[0]).toBe(
       'Spec audit of upper front margins Lead Aiko Sato Cohort Operators: Wren Adeyemi · Indication: Excess gingival display / altered passive eruption · Region: Upper front (canine to canine) ' +
-        'Standards 1 Re-audit 1 Sep 2026 Latest cycle Cycle 2 playlist_add Gathering data',
+        'Standards 1 Re-audit 1 Sept 2026 Latest cycle Cycle 2 playlist_add Gathering data',
     );
     expect(cards()[1]).toContain('Re-audit Not set Latest cycle No cycle yet');
   });

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, LOCALE_ID, computed, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -11,6 +10,7 @@ import { AuditsApi } from '../audits-api';
 import { CycleStageBadge } from '../badges/cycle-stage-badge';
 import { cohortSentence, describeCohort } from '../cohort-description';
 import { operatorNamingFor } from '../operator-naming';
+import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 
 /** One audit as its card shows it. */
 interface AuditCard {
@@ -23,7 +23,7 @@ interface AuditCard {
 @Component({
   selector: 'tm-audit-list',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [CycleStageBadge, DatePipe, MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink],
+  imports: [CycleStageBadge, LocalDatePipe, MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink],
   templateUrl: './audit-list.html',
   styleUrl: './audit-list.scss',
 })

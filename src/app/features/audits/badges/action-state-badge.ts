@@ -3,7 +3,8 @@ import { MatIconModule } from '@angular/material/icon';
 import { ACTION_STATE_LABELS, type ActionState } from '@tidemark/shared';
 import { BADGE_STYLES, type BadgeLook } from './badge-styles';
 
-const ACTION_STATE_LOOK: Readonly<Record<ActionState, BadgeLook>> = {
+/** Icon and word per action state. */
+export const ACTION_STATE_LOOK: Readonly<Record<ActionState, BadgeLook>> = {
   open: { icon: 'radio_button_unchecked', word: ACTION_STATE_LABELS.open, tone: 'quiet' },
   'under-way': { icon: 'pending', word: ACTION_STATE_LABELS['under-way'], tone: 'calm' },
   done: { icon: 'check_circle', word: ACTION_STATE_LABELS.done, tone: 'calm' },

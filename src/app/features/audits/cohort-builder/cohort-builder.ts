@@ -6,6 +6,7 @@ import { MatChipsModule } from '@angular/material/chips';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
 import {
   DIABETES_LABELS,
   DIABETES_STATUSES,
@@ -56,7 +57,7 @@ const optionsOf = <K extends string>(keys: readonly K[], labels: Readonly<Record
 @Component({
   selector: 'tm-cohort-builder',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatButtonModule, MatChipsModule, MatFormFieldModule, MatIconModule, MatInputModule, ReactiveFormsModule, ToothPicker],
+  imports: [MatButtonModule, MatChipsModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, ReactiveFormsModule, ToothPicker],
   templateUrl: './cohort-builder.html',
   styleUrl: './cohort-builder.scss',
 })

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, output } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -15,6 +14,7 @@ import { failureSentence } from '../failure-sentence';
 import { VerdictBadge } from '../badges/verdict-badge';
 import { StandardDialog, type StandardDialogData } from '../standard-dialog/standard-dialog';
 import { formatObserved, formatTarget, standardParameters } from '../standard-wording';
+import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 
 /** One row: the standard in words and its latest result. */
 interface CriterionRow {
@@ -30,7 +30,7 @@ interface CriterionRow {
 @Component({
   selector: 'tm-criteria-table',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [DatePipe, MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule, VerdictBadge],
+  imports: [LocalDatePipe, MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule, VerdictBadge],
   templateUrl: './criteria-table.html',
   styleUrl: './criteria-table.scss',
 })

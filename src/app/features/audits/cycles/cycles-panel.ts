@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { HttpErrorResponse } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, output } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
@@ -15,6 +14,7 @@ import { CycleStageBadge } from '../badges/cycle-stage-badge';
 import { CycleDialog, type CycleDialogData } from '../cycle-dialog/cycle-dialog';
 import { failureSentence } from '../failure-sentence';
 import { stageMovesFrom, type StageMove } from './stage-moves';
+import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 
 const DAY_MS = 86_400_000;
 
@@ -22,7 +22,7 @@ const DAY_MS = 86_400_000;
 @Component({
   selector: 'tm-cycles-panel',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [ActionPlan, CycleStageBadge, DatePipe, MatButtonModule, MatIconModule],
+  imports: [ActionPlan, CycleStageBadge, LocalDatePipe, MatButtonModule, MatIconModule],
   templateUrl: './cycles-panel.html',
   styleUrl: './cycles-panel.scss',
 })

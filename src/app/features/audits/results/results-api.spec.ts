@@ -65,6 +65,21 @@ describe('ResultsApi', () => {
     calibration.flush({});
   });
 
+  it('narrows every view to a phenotype and an operator, except the funnel, which takes the phenotype only', () => {
+    const narrowed = { cycleId: null, phenotype: 'thin', operatorId: 9 } as const;
+    void firstValueFrom(api.results(7, { ...narrowed, groupBy: null }));
+    void firstValueFrom(api.trend(7, { ...narrowed, intervalKey: '6m' }));
+    void firstValueFrom(api.survival(7, narrowed));
+    void firstValueFrom(api.calibration(7, narrowed));
+    void firstValueFrom(api.funnel(7, { cycleId: null, phenotype: 'thin', measure: 'complication', intervalKey: null }));
+    expect(paramsOf(only('/api/audits/7/results'))).toEqual({ phenotype: 'thin', operatorId: '9' });
+    expect(paramsOf(only('/api/audits/7/trend'))).toEqual({ phenotype: 'thin', operatorId: '9', intervalKey: '6m' });
+    expect(paramsOf(only('/api/audits/7/survival'))).toEqual({ phenotype: 'thin', operatorId: '9' });
+    expect(paramsOf(only('/api/audits/7/calibration'))).toEqual({ phenotype: 'thin', operatorId: '9' });
+    expect(paramsOf(only('/api/audits/7/funnel'))).toEqual({ phenotype: 'thin', measure: 'complication' });
+    http.match(() => true).forEach((request) => request.flush({}));
+  });
+
   it('hands back the server’s answer as it came', async () => {
     const answer: CalibrationResult = {
       pairs: 0,

@@ -1,15 +1,22 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import type { AuditResults, CalibrationResult, FunnelResult, GroupBy, SurvivalResult, TrendResult } from '@tidemark/shared';
+import type { AuditResults, CalibrationResult, FunnelResult, GroupBy, Phenotype, SurvivalResult, TrendResult } from '@tidemark/shared';
 import { Observable } from 'rxjs';
 
 /** Which funnel the operators are placed on. */
 export type FunnelMeasure = FunnelResult['measure'];
 
-/** Live results (no cycle) or one audit cycle's (frozen once reported). */
+/**
+ * Live results (no cycle) or one audit cycle's (frozen once reported), optionally narrowed to
+ * one gingival phenotype and/or one operator (left out: the whole cohort).
+ */
 export interface ResultsScope {
   /** The cycle, or null for live results. */
   readonly cycleId: number | null;
+  /** Only cases of this phenotype. */
+  readonly phenotype?: Phenotype | null;
+  /** Only cases of this operator (user id). The funnel never takes it: it compares every operator. */
+  readonly operatorId?: number | null;
 }
 
 /** HTTP calls of the Results area of an audit (server routes in `server/routes/audits.routes.ts`). */
@@ -23,7 +30,7 @@ export class ResultsApi {
   }
 
   /** Operators' complication or relapse rates against the practice rate, with 95% and 99.8% limits. */
-  funnel(auditId: number, scope: ResultsScope & { readonly measure: FunnelMeasure; readonly intervalKey: string | null }): Observable<FunnelResult> {
+  funnel(auditId: number, scope: Omit<ResultsScope, 'operatorId'> & { readonly measure: FunnelMeasure; readonly intervalKey: string | null }): Observable<FunnelResult> {
     const params = scopeParams(scope, { measure: scope.measure, intervalKey: scope.intervalKey });
     return this.http.get<FunnelResult>(this.address(auditId, 'funnel'), { params });
   }
@@ -52,6 +59,8 @@ export class ResultsApi {
 function scopeParams(scope: ResultsScope, extra: Readonly<Record<string, string | null>>): HttpParams {
   let params = new HttpParams();
   if (scope.cycleId !== null) params = params.set('cycleId', scope.cycleId);
+  if (scope.phenotype) params = params.set('phenotype', scope.phenotype);
+  if (scope.operatorId) params = params.set('operatorId', scope.operatorId);
   for (const [name, value] of Object.entries(extra)) {
     if (value !== null) params = params.set(name, value);
   }

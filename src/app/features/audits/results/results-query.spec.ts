@@ -8,14 +8,14 @@ function interval(key: string, targetDays: number): RecallInterval {
 
 describe('results query', () => {
   it('reads every parameter it owns from the address', () => {
-    const query = readResultsQuery(convertToParamMap({ groupBy: 'operator', interval: '12m', measure: 'relapse', cycle: '2', area: 'results' }));
-    expect(query).toEqual({ groupBy: 'operator', interval: '12m', measure: 'relapse', cycle: 2 });
+    const query = readResultsQuery(convertToParamMap({ groupBy: 'operator', interval: '12m', measure: 'relapse', cycle: '2', phenotype: 'thin', operator: '9', area: 'results' }));
+    expect(query).toEqual({ groupBy: 'operator', interval: '12m', measure: 'relapse', cycle: 2, phenotype: 'thin', operator: 9 });
   });
 
   it('drops only the values that make no sense', () => {
-    const query = readResultsQuery(convertToParamMap({ groupBy: 'postcode', interval: '6m', measure: 'mood', cycle: '-4' }));
+    const query = readResultsQuery(convertToParamMap({ groupBy: 'postcode', interval: '6m', measure: 'mood', cycle: '-4', phenotype: 'medium', operator: 'Dr X' }));
     expect(query).toEqual({ ...DEFAULT_RESULTS_QUERY, interval: '6m' });
-    expect(readResultsQuery(convertToParamMap({ interval: 'x'.repeat(21), cycle: '1.5' }))).toEqual(DEFAULT_RESULTS_QUERY);
+    expect(readResultsQuery(convertToParamMap({ interval: 'x'.repeat(21), cycle: '1.5', operator: '0' }))).toEqual(DEFAULT_RESULTS_QUERY);
   });
 
   it('turns defaults into nulls so merging removes them from the address', () => {
@@ -26,6 +26,8 @@ describe('results query', () => {
       cycle: 4,
       interval: '3m',
     });
+    expect(resultsQueryParams({ phenotype: 'thick', operator: 5 })).toEqual({ phenotype: 'thick', operator: 5 });
+    expect(resultsQueryParams({ phenotype: null, operator: null })).toEqual({ phenotype: null, operator: null });
     // Only what changed is written: other parameters stay as they are.
     expect(Object.keys(resultsQueryParams({ interval: '6w' }))).toEqual(['interval']);
   });

@@ -1,20 +1,21 @@
-import { DatePipe } from '@angular/common';
 import { HttpErrorResponse } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, signal, viewChild } from '@angular/core';
 import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
-import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
+import { FormControl, FormGroup, FormGroupDirective, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { reviewNoteCreateSchema, type AuditView, type ReviewNoteView } from '@tidemark/shared';
-import { catchError, of, switchMap } from 'rxjs';
+import { catchError, of, switchMap, tap } from 'rxjs';
 import { apiErrorDetails } from '../../../core/http/api-error-details';
 import { SERVER_ERROR, fieldMessage, zodValidator } from '../../../shared/forms/zod-validator';
 import { AuditsApi } from '../audits-api';
 import { failureSentence } from '../failure-sentence';
 import { placeFieldMessages } from '../field-messages';
+import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 
 /** Charts a note can be about, by their topic key (the results board's chart titles). */
 const CHART_TOPICS: readonly { readonly topic: string; readonly label: string }[] = [
@@ -27,7 +28,7 @@ const CHART_TOPICS: readonly { readonly topic: string; readonly label: string }[
 @Component({
   selector: 'tm-review-notes',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [DatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, ReactiveFormsModule],
+  imports: [LocalDatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule, ReactiveFormsModule],
   templateUrl: './review-notes.html',
   styleUrl: './review-notes.scss',
 })
@@ -38,7 +39,10 @@ export class ReviewNotes {
   /** The audit the notes belong to. */
   readonly audit = input.required<AuditView>();
 
+  /** The form's directive: resetting through it also forgets the submit, so the emptied note shows no error. */
+  private readonly formDirective = viewChild.required(FormGroupDirective);
   protected readonly notes = signal<ReviewNoteView[]>([]);
+  protected readonly isLoading = signal(true);
   protected readonly hasLoadFailed = signal(false);
   protected readonly isSaving = signal(false);
   protected readonly failure = signal<string | null>(null);
@@ -70,10 +74,12 @@ export class ReviewNotes {
   constructor() {
     toObservable(computed(() => this.audit().id))
       .pipe(
+        tap(() => this.isLoading.set(true)),
         switchMap((auditId) => this.api.notes(auditId).pipe(catchError(() => of(null)))),
         takeUntilDestroyed(),
       )
       .subscribe((notes) => {
+        this.isLoading.set(false);
         this.hasLoadFailed.set(notes === null);
         this.notes.set(notes ?? []);
       });
@@ -95,7 +101,7 @@ export class ReviewNotes {
         next: (note) => {
           this.isSaving.set(false);
           this.notes.update((notes) => [...notes, note]);
-          this.form.reset({ topic: value.topic, cycleId: value.cycleId, text: '' });
+          this.formDirective().resetForm({ topic: value.topic, cycleId: value.cycleId, text: '' });
         },
         error: (error: unknown) => {
           this.isSaving.set(false);

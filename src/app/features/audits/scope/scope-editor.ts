@@ -3,6 +3,7 @@ import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, injec
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
@@ -16,6 +17,7 @@ import { SCHEMA_ERROR, SERVER_ERROR, fieldMessage } from '../../../shared/forms/
 import { AuditsApi } from '../audits-api';
 import { CohortBuilder } from '../cohort-builder/cohort-builder';
 import { issueMessages, placeFieldMessages, revalidate } from '../field-messages';
+import { ScheduleDialog, type ScheduleDialogData } from '../schedule-dialog/schedule-dialog';
 import { intervalWords } from '../standard-wording';
 import { auditRequestFromForm, createAuditForm, fillAuditForm } from './audit-form';
 
@@ -34,6 +36,7 @@ import { auditRequestFromForm, createAuditForm, fillAuditForm } from './audit-fo
 export class ScopeEditor {
   private readonly api = inject(AuditsApi);
   private readonly destroyRef = inject(DestroyRef);
+  private readonly dialog = inject(MatDialog);
 
   /** The audit being edited; null to define a new one. */
   readonly audit = input<AuditView | null>(null);
@@ -65,6 +68,8 @@ export class ScopeEditor {
     return this.form.dirty;
   });
   protected readonly intervalWords = intervalWords;
+  /** The schedule recalls are entered against, which a new schedule picks its intervals from. */
+  protected readonly practiceSchedule = computed(() => this.schedules().find((schedule) => schedule.isDefault) ?? null);
 
   constructor() {
     // The page reloads the audit after changes elsewhere (a standard, a cycle); only a new
@@ -118,6 +123,22 @@ export class ScopeEditor {
         this.showFailure(error);
       },
     });
+  }
+
+  /** Defines a new recall schedule and chooses it for this audit. */
+  protected defineSchedule(): void {
+    const practice = this.practiceSchedule();
+    if (!practice) return;
+    this.dialog
+      .open<ScheduleDialog, ScheduleDialogData, ScheduleView>(ScheduleDialog, { data: { practice }, maxWidth: '680px', autoFocus: 'first-tabbable' })
+      .afterClosed()
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe((saved) => {
+        if (!saved) return;
+        this.schedules.update((schedules) => [...schedules, saved]);
+        this.form.controls.scheduleId.setValue(saved.id);
+        this.form.controls.scheduleId.markAsDirty();
+      });
   }
 
   protected discardChanges(): void {

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, LOCALE_ID, computed, inject, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import type { AuditView, CohortPreview, OperatorView } from '@tidemark/shared';
@@ -7,12 +6,13 @@ import { MillimetresPipe } from '../../../shared/millimetres/millimetres-pipe';
 import { describeCohort } from '../cohort-description';
 import { operatorNamingFor } from '../operator-naming';
 import { intervalWords } from '../standard-wording';
+import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 
 /** An audit's scope for those who read it: aims, schedule, thresholds and the cohort in words. */
 @Component({
   selector: 'tm-scope-summary',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [DatePipe, MatIconModule, MillimetresPipe],
+  imports: [LocalDatePipe, MatIconModule, MillimetresPipe],
   templateUrl: './scope-summary.html',
   styleUrl: './scope-summary.scss',
 })

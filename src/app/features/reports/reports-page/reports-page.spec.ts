@@ -17,12 +17,15 @@ describe('ReportsPage', () => {
   let loader: HarnessLoader;
   let http: HttpTestingController;
 
-  async function openAs(role: Role): Promise<void> {
+  async function openAs(role: Role, link: { audit?: string; cycle?: string } = {}): Promise<void> {
     TestBed.configureTestingModule({
       providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([]), provideStubAuthSession(personWithRole(role))],
     });
     http = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(ReportsPage);
+    // As the router binds `?audit=&cycle=` (withComponentInputBinding).
+    if (link.audit !== undefined) fixture.componentRef.setInput('audit', link.audit);
+    if (link.cycle !== undefined) fixture.componentRef.setInput('cycle', link.cycle);
     loader = TestbedHarnessEnvironment.loader(fixture);
     http.expectOne('/api/audits').flush(AUDITS);
     await fixture.whenStable();
@@ -68,6 +71,27 @@ describe('ReportsPage', () => {
     await openAs('audit_lead');
     expect(element().querySelector('tm-committee-notice')).not.toBeNull();
     expect(element().querySelector('a[href="/cases/import"]')?.textContent).toContain('Import past cases');
+  });
+
+  it('opens on the audit and cycle a link names, such as the committee e-mail’s', async () => {
+    await openAs('governance', { audit: '12', cycle: '72' });
+    const audit = await loader.getHarness(MatSelectHarness.with({ selector: '[formControlName="auditId"]' }));
+    expect(await audit.getValueText()).toBe('Spec audit of upper front margins');
+    expect(await (await scopeSelect()).getValueText()).toBe('Cycle 2 · Jul 2025 – Dec 2025 · Gathering data');
+    expect(element().textContent).not.toContain('not available to you');
+  });
+
+  it('opens a "live" link on live results of the linked audit', async () => {
+    await openAs('governance', { audit: '13', cycle: 'live' });
+    const audit = await loader.getHarness(MatSelectHarness.with({ selector: '[formControlName="auditId"]' }));
+    expect(await audit.getValueText()).toBe('Spec audit without cycles');
+    expect(await (await scopeSelect()).getValueText()).toBe('Live results');
+  });
+
+  it('says so when a link’s audit is not there, and opens as usual', async () => {
+    await openAs('governance', { audit: '404', cycle: '72' });
+    expect(element().querySelector('[role="status"]')?.textContent).toContain('not available to you any more');
+    expect(await (await scopeSelect()).getValueText()).toBe('Cycle 1 · Jan 2025 – Jun 2025 · frozen');
   });
 
   it('chooses live results for an audit with no frozen cycle', () => {

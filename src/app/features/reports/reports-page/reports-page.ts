@@ -1,5 +1,4 @@
-import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, signal } from '@angular/core';
 import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -11,10 +10,12 @@ import { RouterLink } from '@angular/router';
 import { CYCLE_STATE_LABELS, type AuditView, type CycleView } from '@tidemark/shared';
 import { AuthSession } from '../../../core/auth/auth-session';
 import { CommitteeNotice } from '../committee-notice/committee-notice';
+import { resolveReportsLink } from '../report-link';
 import { ReportScope, isFrozen } from '../report-scope';
 import { ReportsApi } from '../reports-api';
 import { WorkbookBuilder } from '../workbook-builder/workbook-builder';
 import { WorkbookContents } from '../workbook-contents/workbook-contents';
+import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 
 /** The scope picker's value: live results, or a cycle's id. */
 type ScopeChoice = 'live' | number;
@@ -42,7 +43,7 @@ export function defaultScope(audit: AuditView | undefined): ScopeChoice {
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
     CommitteeNotice,
-    DatePipe,
+    LocalDatePipe,
     MatButtonModule,
     MatFormFieldModule,
     MatIconModule,
@@ -60,6 +61,11 @@ export class ReportsPage {
   private readonly api = inject(ReportsApi);
   private readonly destroyRef = inject(DestroyRef);
 
+  /** `?audit=` of a link into Reports (the "governance pack ready" e-mail's): the audit to open on. */
+  readonly linkedAudit = input<string | undefined>(undefined, { alias: 'audit' });
+  /** `?cycle=` of such a link: a cycle id, or "live". */
+  readonly linkedCycle = input<string | undefined>(undefined, { alias: 'cycle' });
+
   /** Only the audit lead tells the committee and imports past cases (DESIGN.md §2). */
   protected readonly isLead = inject(AuthSession).user()?.role === 'audit_lead';
   protected readonly stageLabels = CYCLE_STATE_LABELS;
@@ -68,6 +74,9 @@ export class ReportsPage {
   protected readonly audits = signal<readonly AuditView[]>([]);
   protected readonly isLoading = signal(true);
   protected readonly hasLoadFailed = signal(false);
+  /** The link named an audit or cycle that is not (or no longer) there for this person. */
+  protected readonly isLinkMissing = signal(false);
+  private isLinkApplied = false;
 
   protected readonly form = new FormGroup<ReportChoiceForm>({
     auditId: new FormControl<number | null>(null),
@@ -111,6 +120,7 @@ export class ReportsPage {
         next: (audits) => {
           this.audits.set(audits);
           this.isLoading.set(false);
+          if (!this.isLinkApplied) this.applyLink(audits);
           if (!audits.some((audit) => audit.id === this.form.controls.auditId.value)) {
             this.form.controls.auditId.setValue(audits[0]?.id ?? null);
           }
@@ -121,5 +131,15 @@ export class ReportsPage {
           this.hasLoadFailed.set(true);
         },
       });
+  }
+
+  /** Opens on the audit and scope a link asked for, once; later choices are the person's own. */
+  private applyLink(audits: readonly AuditView[]): void {
+    this.isLinkApplied = true;
+    const linked = resolveReportsLink(audits, this.linkedAudit(), this.linkedCycle());
+    this.isLinkMissing.set(linked.kind === 'missing');
+    if (linked.kind !== 'found') return;
+    this.form.controls.auditId.setValue(linked.auditId);
+    this.form.controls.scope.setValue(linked.scope);
   }
 }

@@ -27,6 +27,11 @@ export interface BarLabelOptions {
   readonly inks: readonly string[];
   /** Segments shorter than this many pixels stay unlabelled. */
   readonly minHeight: number;
+  /**
+   * Short name per dataset index (e.g. "Score 2"), written with the value where the segment has
+   * room, so a segment is named in words and never by its colour alone.
+   */
+  readonly names?: readonly string[];
 }
 
 /** One text label beside a data point. */

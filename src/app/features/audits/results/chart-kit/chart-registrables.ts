@@ -18,9 +18,10 @@ import {
 } from 'chart.js';
 import { provideCharts } from 'ng2-charts';
 import { patternFillPlugin } from './pattern-fill-plugin';
+import { printSizePlugin } from './print-size-plugin';
 import { barLabelPlugin, pointLabelPlugin } from './value-label-plugins';
 
-/** Line and bar charts on category and linear axes, with bands, legend, tooltips and our three plugins. */
+/** Line and bar charts on category and linear axes, with bands, legend, tooltips and our four plugins. */
 export const RESULTS_CHART_PARTS: readonly ChartComponentLike[] = [
   LineController,
   BarController,
@@ -35,6 +36,7 @@ export const RESULTS_CHART_PARTS: readonly ChartComponentLike[] = [
   patternFillPlugin,
   barLabelPlugin,
   pointLabelPlugin,
+  printSizePlugin,
 ];
 
 /** Providers for any component with a `baseChart` canvas in the Results area. */

@@ -17,11 +17,22 @@ export const barLabelPlugin: Plugin<ChartType, BarLabelOptions> = {
       meta.data.forEach((element, index) => {
         const value = dataset.data[index];
         if (typeof value !== 'number' || value <= 0) return;
-        const { x, y, base } = element.getProps(['x', 'y', 'base'], true);
+        const { x, y, base, width } = element.getProps(['x', 'y', 'base', 'width'], true);
         if (typeof base !== 'number' || Math.abs(base - y) < options.minHeight) return;
         const text = options.format === 'percent' ? `${Math.round(value)}%` : String(value);
         ctx.fillStyle = options.inks[datasetIndex] ?? '#000';
-        ctx.fillText(text, x, (y + base) / 2);
+        const name = options.names?.[datasetIndex];
+        const room = typeof width === 'number' ? width - 4 : 0;
+        const middle = (y + base) / 2;
+        if (name && Math.abs(base - y) >= 2 * LINE && ctx.measureText(name).width <= room) {
+          // Room for two lines: the name above, the value below.
+          ctx.fillText(name, x, middle - LINE / 2);
+          ctx.fillText(text, x, middle + LINE / 2);
+        } else if (name && ctx.measureText(`${name} · ${text}`).width <= room) {
+          ctx.fillText(`${name} · ${text}`, x, middle);
+        } else {
+          ctx.fillText(text, x, middle);
+        }
       });
     });
     ctx.restore();

@@ -108,7 +108,7 @@ describe('buildDriftChart', () => {
 describe('buildDriftTable', () => {
   it('lists every interval with n sites, n patients, mean and CI at the chosen level', () => {
     const table = buildDriftTable(auditResults(), 'patient');
-    expect(table.columns).toEqual(['Interval', 'n sites', 'n patients', 'Mean rebound (patient level)', '95% CI, mm']);
+    expect(table.columns).toEqual(['Interval', 'n sites', 'n patients', 'Mean rebound, mm (patient level)', '95% CI, mm']);
     expect(table.rows[1]).toEqual(['6 months', '40', '10', '0.60 mm', '0.40 to 0.80']);
   });
 

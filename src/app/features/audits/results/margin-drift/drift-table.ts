@@ -20,7 +20,7 @@ export function buildDriftTable(results: AuditResults, level: DriftLevel): Figur
       return isGrouped ? [series.name, ...cells] : cells;
     }),
   );
-  const columns = ['Interval', 'n sites', 'n patients', `Mean rebound (${level} level)`, '95% CI, mm'];
+  const columns = ['Interval', 'n sites', 'n patients', `Mean rebound, mm (${level} level)`, '95% CI, mm'];
   return {
     caption: `Mean rebound per interval, ${level} level. Published reference: ${ARORA_2013.citation}, ${ARORA_2013.mean} ± ${ARORA_2013.sd} mm at 6 months.`,
     columns: isGrouped ? ['Group', ...columns] : columns,

@@ -27,7 +27,7 @@ export function buildXmrTable(trend: TrendResult, intervalLabel: string): Figure
   const limits = lcl !== null && ucl !== null ? formatInterval(lcl, ucl, (value) => formatNumber(value, 2)) + ' mm' : NOT_AVAILABLE;
   return {
     caption: `Mean site rebound at ${intervalLabel} per month of surgery; mean ${formatMm(mean)}, natural process limits ${limits}.`,
-    columns: ['Month of surgery', 'Mean rebound', 'Outside the limits'],
+    columns: ['Month of surgery', 'Mean rebound, mm', 'Outside the limits'],
     rows: trend.rebound.points.map((point) => [monthLabel(point.month), formatMm(point.value), point.isOutside ? 'Yes' : 'No']),
   };
 }

@@ -15,10 +15,12 @@ describe('buildPapillaChart', () => {
     expect(config.options?.scales?.['y']?.max).toBe(100);
   });
 
-  it('writes each share inside its segment, in an ink that reads on that fill', () => {
+  it('writes each score and share inside its segment, in an ink that reads on that fill', () => {
     const labels = config.options?.plugins?.tmBarLabels;
     expect(labels?.display).toBe(true);
     expect(labels?.format).toBe('percent');
+    // Named in words, so no segment is told apart by its colour alone (DESIGN.md §8).
+    expect(labels?.names).toEqual(['Score 0', 'Score 1', 'Score 2', 'Score 3', 'Score 4']);
     expect(labels?.inks).toEqual(['#fff8f1', '#1e1b15', '#1e1b15', '#1e1b15', '#fff8f1']);
   });
 
@@ -40,7 +42,7 @@ describe('buildPapillaChart', () => {
 describe('buildPapillaTable', () => {
   it('gives shares with counts per score and the mean change from baseline', () => {
     const table = buildPapillaTable(auditResults());
-    expect(table.columns).toEqual(['Interval', 'Scored sites', 'Patients', 'Score 0', 'Score 1', 'Score 2', 'Score 3', 'Score 4', 'Mean change from baseline']);
+    expect(table.columns).toEqual(['Interval', 'Scored sites', 'Patients', 'Score 0', 'Score 1', 'Score 2', 'Score 3', 'Score 4', 'Mean change from baseline, score points']);
     expect(table.rows[0]).toEqual(['6 weeks', '20', '8', '0.0% (0)', '10.0% (2)', '20.0% (4)', '50.0% (10)', '20.0% (4)', '0.50']);
   });
 });

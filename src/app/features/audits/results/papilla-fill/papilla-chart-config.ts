@@ -36,7 +36,7 @@ function intervalSummary(results: AuditResults, key: string): IntervalOutcomeSum
 
 /**
  * "Papilla fill by interval": stacked shares of papilla scores 0–4 per interval, each
- * segment carrying its percentage so the scores never rest on hue alone.
+ * segment carrying its score and percentage so the scores never rest on hue alone.
  */
 export function buildPapillaChart(results: AuditResults, palette: ChartPalette): PapillaChartConfiguration {
   const datasets: ChartDataset<'bar', (number | null)[]>[] = PAPILLA_SCORES.map((label, score) => ({
@@ -58,7 +58,13 @@ export function buildPapillaChart(results: AuditResults, palette: ChartPalette):
       plugins: {
         legend: HIDDEN_LEGEND,
         tooltip: tooltipLook(palette),
-        tmBarLabels: { display: true, format: 'percent', inks: palette.papilla.map((colour) => readableInk(colour)), minHeight: LABEL_MIN_HEIGHT },
+        tmBarLabels: {
+          display: true,
+          format: 'percent',
+          inks: palette.papilla.map((colour) => readableInk(colour)),
+          minHeight: LABEL_MIN_HEIGHT,
+          names: PAPILLA_SCORES.map((_, score) => `Score ${score}`),
+        },
       },
     },
   };
@@ -68,7 +74,7 @@ export function buildPapillaChart(results: AuditResults, palette: ChartPalette):
 export function buildPapillaTable(results: AuditResults): FigureTable {
   return {
     caption: 'Papilla scores (Jemt 1997) per interval: share of scored sites, with counts.',
-    columns: ['Interval', 'Scored sites', 'Patients', ...PAPILLA_SCORES.map((_, score) => `Score ${score}`), 'Mean change from baseline'],
+    columns: ['Interval', 'Scored sites', 'Patients', ...PAPILLA_SCORES.map((_, score) => `Score ${score}`), 'Mean change from baseline, score points'],
     rows: results.schedule.map((interval) => {
       const papilla = intervalSummary(results, interval.key)?.papilla;
       const scores = PAPILLA_SCORES.map((_, score) => {

@@ -17,7 +17,7 @@ import { buildPapillaChart, buildPapillaTable } from './papilla-chart-config';
   providers: [provideResultsCharts()],
   template: `
     <tm-results-figure heading="Papilla fill by interval" [counts]="counts()" [table]="table()">
-      <span tmFigureNote>Papilla index 0–4 after Jemt (1997), interdental sites scored at each recall. Each segment is labelled with its share.</span>
+      <span tmFigureNote>Papilla index 0–4 after Jemt (1997), interdental sites scored at each recall. Each segment is labelled with its score and share.</span>
       <canvas baseChart [type]="'bar'" [data]="config().data" [options]="config().options" [legend]="false" role="img" [attr.aria-label]="label"></canvas>
       <tm-chart-legend tmFigureLegend [entries]="legend()" />
     </tm-results-figure>

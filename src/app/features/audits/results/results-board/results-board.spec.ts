@@ -8,7 +8,8 @@ import { MatChipOptionHarness } from '@angular/material/chips/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { Router, provideRouter } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
-import type { CycleView } from '@tidemark/shared';
+import type { CycleView, OperatorView, Role } from '@tidemark/shared';
+import { personWithRole, provideStubAuthSession } from '../../../../core/auth/testing/stub-auth-session';
 import { auditResults, calibrationResult, funnelResult, survivalResult, trendResult } from '../testing/results-fixtures';
 import { ResultsBoard } from './results-board';
 
@@ -28,13 +29,20 @@ const CYCLES: CycleView[] = [
   },
 ];
 
+/** Invented operators; the signed-in spec person (personWithRole) has id 41. */
+const OPERATORS: OperatorView[] = [
+  { id: 7, displayName: 'Dr Ida Quill' },
+  { id: 41, displayName: 'Dr Sam Spec' },
+];
+
 /** Stands in for the audit page, which embeds the board exactly like this. */
 @Component({
   imports: [ResultsBoard],
-  template: `<tm-results-board [auditId]="1" [cycles]="cycles" />`,
+  template: `<tm-results-board [auditId]="1" [cycles]="cycles" [operators]="operators" />`,
 })
 class AuditPageStandIn {
   readonly cycles = CYCLES;
+  readonly operators = OPERATORS;
 }
 
 describe('ResultsBoard', () => {
@@ -43,11 +51,16 @@ describe('ResultsBoard', () => {
   let http: HttpTestingController;
   let router: Router;
 
-  async function open(url: string): Promise<TestRequest[]> {
+  async function open(url: string, role: Role = 'audit_lead'): Promise<TestRequest[]> {
     TestBed.configureTestingModule({
       // The charts live in a deferred block with their own specs; here the filters and requests matter.
       deferBlockBehavior: DeferBlockBehavior.Manual,
-      providers: [provideRouter([{ path: 'audits/:id', component: AuditPageStandIn }]), provideHttpClient(), provideHttpClientTesting()],
+      providers: [
+        provideRouter([{ path: 'audits/:id', component: AuditPageStandIn }]),
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        provideStubAuthSession(personWithRole(role)),
+      ],
     });
     http = TestBed.inject(HttpTestingController);
     router = TestBed.inject(Router);
@@ -180,6 +193,57 @@ describe('ResultsBoard', () => {
     await answerAll();
     expect(router.url).toBe('/audits/1?area=results&interval=12m');
     expect(pageText()).not.toContain('Frozen on');
+  });
+
+  it('narrows every view to the phenotype and operator in the address, the funnel to the phenotype only', async () => {
+    const requests = await open('/audits/1?area=results&phenotype=thin&operator=7', 'partner');
+    expect(paramsOf(requests, 'results')).toEqual({ phenotype: 'thin', operatorId: '7' });
+    expect(paramsOf(requests, 'trend')).toEqual({ phenotype: 'thin', operatorId: '7', intervalKey: '6m' });
+    expect(paramsOf(requests, 'survival')).toEqual({ phenotype: 'thin', operatorId: '7' });
+    expect(paramsOf(requests, 'calibration')).toEqual({ phenotype: 'thin', operatorId: '7' });
+    expect(paramsOf(requests, 'funnel')).toEqual({ phenotype: 'thin', measure: 'complication', intervalKey: '6m' });
+    const operator = await loader.getHarness(MatSelectHarness.with({ selector: '.narrow-field:last-of-type mat-select' }));
+    expect(await operator.getValueText()).toBe('Dr Ida Quill');
+    expect(pageText()).toContain('The operator funnel still compares every operator');
+  });
+
+  it('writes a chosen phenotype and operator to the address and asks again', async () => {
+    await open('/audits/1?area=results&groupBy=operator', 'partner');
+    const [, phenotype, operator] = await loader.getAllHarnesses(MatSelectHarness);
+    await phenotype.open();
+    await phenotype.clickOptions({ text: 'Thick (> 1 mm)' });
+    let requests = await answerAll();
+    expect(router.url).toBe('/audits/1?area=results&groupBy=operator&phenotype=thick');
+    expect(paramsOf(requests, 'results')).toEqual({ groupBy: 'operator', phenotype: 'thick' });
+    expect(paramsOf(requests, 'funnel')).toEqual({ phenotype: 'thick', measure: 'complication', intervalKey: '6m' });
+
+    await operator.open();
+    await operator.clickOptions({ text: 'Dr Sam Spec (you)' });
+    requests = await answerAll();
+    expect(router.url).toBe('/audits/1?area=results&groupBy=operator&phenotype=thick&operator=41');
+    expect(paramsOf(requests, 'results')).toEqual({ groupBy: 'operator', phenotype: 'thick', operatorId: '41' });
+    // Only the operator changed, and the funnel does not take it: it is not asked again.
+    expect(paramsOf(requests, 'funnel')).toBeUndefined();
+
+    await phenotype.open();
+    await phenotype.clickOptions({ text: 'Every phenotype' });
+    await answerAll();
+    expect(router.url).toBe('/audits/1?area=results&groupBy=operator&operator=41');
+  });
+
+  it('offers a clinician only their own cases and ignores another operator in the address; governance no operator at all', async () => {
+    const requests = await open('/audits/1?area=results&operator=7', 'clinician');
+    expect(paramsOf(requests, 'results')).toEqual({});
+    const operator = (await loader.getAllHarnesses(MatSelectHarness))[2];
+    await operator.open();
+    expect(await Promise.all((await operator.getOptions()).map((option) => option.getText()))).toEqual(['Every operator', 'My cases only']);
+    await operator.close();
+  });
+
+  it('shows governance the phenotype filter but no operator filter', async () => {
+    await open('/audits/1?area=results&operator=7', 'governance');
+    // Scope and phenotype only.
+    expect((await loader.getAllHarnesses(MatSelectHarness)).length).toBe(2);
   });
 
   it('falls back to the default interval when the address names one the schedule lacks, and ignores a foreign cycle', async () => {

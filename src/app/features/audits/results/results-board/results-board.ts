@@ -1,12 +1,12 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { ActivatedRoute, Router } from '@angular/router';
-import type { CycleView } from '@tidemark/shared';
+import type { CycleView, OperatorView } from '@tidemark/shared';
 import { map } from 'rxjs';
+import { AuthSession } from '../../../../core/auth/auth-session';
 import { ColorScheme } from '../../../../core/theme/color-scheme';
 import { ClinicalCaution } from '../../../../shared/clinical-caution/clinical-caution';
 import { chartPalette } from '../chart-kit/chart-palette';
@@ -15,13 +15,15 @@ import { ExaminerAgreement } from '../examiner-agreement/examiner-agreement';
 import { ResultsApi } from '../results-api';
 import { ResultsCharts } from '../results-charts/results-charts';
 import { ResultsFilters } from '../results-filters/results-filters';
+import { operatorChoices } from '../operator-choices';
 import { isSameKey, loadOnChange } from '../results-load';
 import { readResultsQuery, resolveInterval, resultsQueryParams, type ResultsQuery } from '../results-query';
 import { ResultsSummaryTable } from '../results-summary-table/results-summary-table';
+import { LocalDatePipe } from '../../../../shared/dates/local-date-pipe';
 
 /**
- * The Results area of an audit: scope and filter chips kept in the address
- * (`?groupBy=&interval=&measure=&cycle=`), every chart and table following them together.
+ * The Results area of an audit: scope, narrowing and filter chips kept in the address
+ * (`?groupBy=&interval=&measure=&cycle=&phenotype=&operator=`), every chart and table following them together.
  * Charts (and Chart.js) load in a deferred block of their own.
  */
 @Component({
@@ -29,7 +31,7 @@ import { ResultsSummaryTable } from '../results-summary-table/results-summary-ta
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
     ClinicalCaution,
-    DatePipe,
+    LocalDatePipe,
     ExaminerAgreement,
     MatButtonModule,
     MatIconModule,
@@ -46,11 +48,14 @@ export class ResultsBoard {
   private readonly router = inject(Router);
   private readonly route = inject(ActivatedRoute);
   private readonly scheme = inject(ColorScheme);
+  private readonly viewer = inject(AuthSession).user;
 
   /** The audit whose results are shown. */
   readonly auditId = input.required<number>();
   /** The audit's cycles, for the live / cycle switch. */
   readonly cycles = input<readonly CycleView[]>([]);
+  /** The practice's operators (loaded by the audit page for the roles that see names). */
+  readonly operators = input<readonly OperatorView[]>([]);
 
   /** The view as the address states it. */
   protected readonly query = toSignal(this.route.queryParamMap.pipe(map(readResultsQuery)), { requireSync: true });
@@ -63,7 +68,21 @@ export class ResultsBoard {
     return wanted !== null && (cycles.length === 0 || cycles.some((cycle) => cycle.id === wanted)) ? wanted : null;
   });
 
-  private readonly resultsKey = computed(() => ({ auditId: this.auditId(), cycleId: this.cycleId(), groupBy: this.query().groupBy, reload: this.reloads() }), { equal: isSameKey });
+  /** Operators this viewer may narrow the results to. */
+  protected readonly operatorChoices = computed(() => operatorChoices(this.viewer(), this.operators()));
+  /** The operator in force: the address's, when this viewer may choose it (trusted until the operators are known). */
+  protected readonly operatorId = computed(() => {
+    const wanted = this.query().operator;
+    const choices = this.operatorChoices();
+    const isWaitingForOperators = this.operators().length === 0 && (this.viewer()?.role === 'audit_lead' || this.viewer()?.role === 'partner');
+    return wanted !== null && (isWaitingForOperators || choices.some((choice) => choice.id === wanted)) ? wanted : null;
+  });
+  /** The narrowing every view but the funnel follows. */
+  private readonly narrowing = computed(() => ({ phenotype: this.query().phenotype, operatorId: this.operatorId() }), { equal: isSameKey });
+
+  private readonly resultsKey = computed(() => ({ auditId: this.auditId(), cycleId: this.cycleId(), groupBy: this.query().groupBy, ...this.narrowing(), reload: this.reloads() }), {
+    equal: isSameKey,
+  });
   protected readonly results = loadOnChange(this.resultsKey, (key) => this.api.results(key.auditId, key));
 
   /** Results of the scope in force only: a stale answer from another scope must not choose the interval. */
@@ -77,18 +96,19 @@ export class ResultsBoard {
   private readonly intervalScopeKey = computed(
     () => {
       const interval = this.currentResults() ? this.intervalKey() : null;
-      return interval === null ? null : { auditId: this.auditId(), cycleId: this.cycleId(), intervalKey: interval, reload: this.reloads() };
+      return interval === null ? null : { auditId: this.auditId(), cycleId: this.cycleId(), intervalKey: interval, ...this.narrowing(), reload: this.reloads() };
     },
     { equal: isSameKey },
   );
   private readonly funnelKey = computed(
     () => {
       const scope = this.intervalScopeKey();
-      return scope === null ? null : { ...scope, measure: this.query().measure };
+      // The funnel compares every operator: only the phenotype narrows it.
+      return scope === null ? null : { ...scope, operatorId: null, measure: this.query().measure };
     },
     { equal: isSameKey },
   );
-  private readonly scopeKey = computed(() => ({ auditId: this.auditId(), cycleId: this.cycleId(), reload: this.reloads() }), { equal: isSameKey });
+  private readonly scopeKey = computed(() => ({ auditId: this.auditId(), cycleId: this.cycleId(), ...this.narrowing(), reload: this.reloads() }), { equal: isSameKey });
 
   protected readonly funnel = loadOnChange(this.funnelKey, (key) => this.api.funnel(key.auditId, key));
   protected readonly trend = loadOnChange(this.intervalScopeKey, (key) => this.api.trend(key.auditId, key));

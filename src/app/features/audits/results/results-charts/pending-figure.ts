@@ -1,13 +1,14 @@
 import { ChangeDetectionStrategy, Component, input, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { Loaded } from '../results-load';
 
 /** Stands in for a chart whose data is still loading or failed to load, under the chart's own title. */
 @Component({
   selector: 'tm-pending-figure',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatButtonModule, MatIconModule],
+  imports: [MatButtonModule, MatIconModule, MatProgressBarModule],
   template: `
     <section class="pending" [attr.aria-busy]="loaded().status === 'loading'">
       <h3>{{ heading() }}</h3>
@@ -15,7 +16,8 @@ import type { Loaded } from '../results-load';
         <p class="failure"><mat-icon aria-hidden="true">error</mat-icon>{{ loaded().failure }}</p>
         <button mat-stroked-button type="button" (click)="retry.emit()">Try again</button>
       } @else {
-        <p>Loading…</p>
+        <p>Working out this chart…</p>
+        <mat-progress-bar mode="indeterminate" [attr.aria-label]="'Loading ' + heading()" />
       }
     </section>
   `,
