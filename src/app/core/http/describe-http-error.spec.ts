@@ -10,9 +10,10 @@ const body = (code: string, message: string) => ({ error: { code, message } });
 describe('describeHttpError', () => {
   it.each([
     [0, "Tidemark can't reach the server. Check the connection and try again."],
-    [403, "Your role doesn't allow this action."],
-    [413, 'That file is too large to upload.'],
-    [415, "That kind of file isn't accepted here."],
+    [403, "Your role doesn't allow this action. If you need it, ask the audit lead or an administrator."],
+    [404, 'That record could not be found. It may have been removed; reload the page to see what is there now.'],
+    [413, 'That file is too large to upload. Choose a smaller one: the size limit is given beside the button.'],
+    [415, "That kind of file isn't accepted here. Choose one of the kinds listed beside the button."],
     [500, 'Something went wrong on the server. Try again; if it keeps happening, tell your administrator.'],
     [503, 'Something went wrong on the server. Try again; if it keeps happening, tell your administrator.'],
   ])('gives status %i a sentence of its own', (status, sentence) => {

@@ -19,16 +19,16 @@ export function describeHttpError(response: HttpErrorResponse): string {
   if (status === 403) {
     return details?.code === 'csrf'
       ? 'This page was open too long to save safely. Reload it and try again.'
-      : "Your role doesn't allow this action.";
+      : "Your role doesn't allow this action. If you need it, ask the audit lead or an administrator.";
   }
   if (status === 404) {
-    return 'That record could not be found. It may have been removed.';
+    return 'That record could not be found. It may have been removed; reload the page to see what is there now.';
   }
   if (status === 413) {
-    return 'That file is too large to upload.';
+    return 'That file is too large to upload. Choose a smaller one: the size limit is given beside the button.';
   }
   if (status === 415) {
-    return "That kind of file isn't accepted here.";
+    return "That kind of file isn't accepted here. Choose one of the kinds listed beside the button.";
   }
   if (status >= 500) {
     return 'Something went wrong on the server. Try again; if it keeps happening, tell your administrator.';

@@ -1,5 +1,11 @@
 import { CASE_STATUS_LABELS, type CaseStatus } from '@tidemark/shared';
 
+/** Fields stored in millimetres (DESIGN.md §3): their values are always shown with the unit. */
+const MILLIMETRE_FIELDS: ReadonlySet<string> = new Set(['refGm', 'baselineRefGm', 'postOpRefGm', 'probingDepth', 'ktWidth', 'marginToCrest', 'plannedExcision', 'deepestProbingMm']);
+
+/** Fields stored as a percentage. */
+const PERCENT_FIELDS: ReadonlySet<string> = new Set(['bleedingScorePct', 'plaqueScorePct']);
+
 /** What kind of record a change touched, in our words. */
 const RECORD_LABELS: Readonly<Record<string, string>> = {
   case: 'Case',
@@ -47,13 +53,19 @@ export function fieldLabel(field: string): string {
   return FIELD_LABELS[field] ?? spaced(field);
 }
 
-/** A stored value as people read it: case states by their label, nothing as "empty". */
+/** A stored value as people read it: case states by their label, readings with their unit, nothing as "empty". */
 export function valueLabel(field: string, value: string | null): string {
   if (value === null || value === '') {
     return 'empty';
   }
   if (field === 'status' && isCaseStatus(value)) {
     return CASE_STATUS_LABELS[value];
+  }
+  if (MILLIMETRE_FIELDS.has(field)) {
+    return `${value} mm`;
+  }
+  if (PERCENT_FIELDS.has(field)) {
+    return `${value}%`;
   }
   return value;
 }

@@ -1,10 +1,10 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import type { ChangeRecordView } from '@tidemark/shared';
 import { fieldLabel, recordLabel, valueLabel } from './change-field-label';
+import { LocalDatePipe } from '../../shared/dates/local-date-pipe';
 
 /** A change record with its words worked out once, not on every check. */
 interface ChangeRow {
@@ -22,7 +22,7 @@ interface ChangeRow {
 @Component({
   selector: 'tm-change-record-table',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [DatePipe, MatIconModule, MatTableModule, RouterLink],
+  imports: [LocalDatePipe, MatIconModule, MatTableModule, RouterLink],
   templateUrl: './change-record-table.html',
   styleUrl: './change-record-table.scss',
 })

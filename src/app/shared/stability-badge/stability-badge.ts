@@ -4,7 +4,7 @@ import { MatTooltipModule } from '@angular/material/tooltip';
 import type { StabilityClass } from '@tidemark/shared';
 
 /** Icon and word per stability class (DESIGN.md §3); coral only where the margin relapsed. */
-const STABILITY_LOOK: Readonly<Record<StabilityClass, { icon: string; word: string }>> = {
+export const STABILITY_LOOK: Readonly<Record<StabilityClass, { icon: string; word: string }>> = {
   stable: { icon: 'check_circle', word: 'stable' },
   minor: { icon: 'radio_button_partial', word: 'minor' },
   relapse: { icon: 'warning', word: 'relapse' },

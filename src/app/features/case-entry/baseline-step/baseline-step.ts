@@ -13,7 +13,7 @@ import { SiteBaselineCard } from '../site-baseline-card/site-baseline-card';
     <div class="step">
       <p class="help">
         REF→GM is the distance from the fixed reference point to the mid-facial gingival margin; it grows when tissue is
-        removed. Enter millimetres in 0.5 mm steps (0–20 mm).
+        removed. Enter millimetres to the nearest 0.5 mm (0–20 mm); focus or point at a field to see how it is measured.
       </p>
       @for (site of siteGroups(); track site) {
         <tm-site-baseline-card [group]="site" [isOperated]="isOperated()" />

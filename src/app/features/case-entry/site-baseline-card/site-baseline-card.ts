@@ -4,10 +4,12 @@ import { ErrorStateMatcher } from '@angular/material/core';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
+import { MatTooltipModule } from '@angular/material/tooltip';
 import { planningCheck } from '@tidemark/analytics/planning-check';
 import { PAPILLA_SCORE_LABELS, REFERENCE_POINT_LABELS, SITE_LOCATION_LABELS } from '@tidemark/shared';
 import { formRevision } from '../../../shared/forms/form-revision';
 import { LiveErrorStateMatcher } from '../../../shared/forms/live-error-state-matcher';
+import { MEASUREMENT_HELP } from '../../../shared/measurement-help/measurement-help';
 import { fieldMessage } from '../../../shared/forms/zod-validator';
 import type { SiteForm } from '../case-entry-form';
 import { PlanningCheckPanel } from '../planning-check-panel/planning-check-panel';
@@ -21,7 +23,7 @@ function usableReading(control: FormControl<number | null>): number | null {
 @Component({
   selector: 'tm-site-baseline-card',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, PlanningCheckPanel],
+  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatTooltipModule, PlanningCheckPanel],
   providers: [{ provide: ErrorStateMatcher, useClass: LiveErrorStateMatcher }],
   templateUrl: './site-baseline-card.html',
   styleUrl: './site-baseline-card.scss',
@@ -35,6 +37,8 @@ export class SiteBaselineCard {
   private readonly revision = formRevision(this.group);
 
   protected readonly referencePoints = Object.entries(REFERENCE_POINT_LABELS);
+  /** Each reading's convention: a hint under the field, the whole of it on focus or hover (DESIGN.md §3). */
+  protected readonly help = MEASUREMENT_HELP;
   protected readonly papillaScores = PAPILLA_SCORE_LABELS.map((label, score) => ({ score, label }));
 
   protected readonly title = computed(() => {

@@ -1,6 +1,6 @@
-import { formatDate } from '@angular/common';
 import { CASE_STATUS_LABELS, PHENOTYPE_LABELS, PROCEDURE_LABELS, type CaseListQuery, type OperatorView } from '@tidemark/shared';
 import { CASE_LIST_FILTERS } from './case-list-query';
+import { formatLocalDate } from '../../../shared/dates/local-date';
 
 /** One active filter shown as a removable chip. */
 export interface FilterChip {
@@ -10,7 +10,7 @@ export interface FilterChip {
 
 /** The query's active filters as chips, in a fixed order, each saying what it keeps. */
 export function filterChips(query: CaseListQuery, operators: readonly OperatorView[], locale: string): FilterChip[] {
-  const date = (value: string) => formatDate(value, 'd MMM y', locale);
+  const date = (value: string) => formatLocalDate(value, 'date', locale);
   const labels: Record<FilterChip['name'], string | null> = {
     patientCode: query.patientCode ? `Patient code contains “${query.patientCode}”` : null,
     operatorId:

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, LOCALE_ID, computed, inject, signal } from '@angular/core';
 import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
@@ -35,6 +34,7 @@ import { fieldMessage, zodValidator } from '../../../shared/forms/zod-validator'
 import { CasesApi } from '../cases-api';
 import { type FilterChip, filterChips } from './case-filter-chips';
 import { CASE_PAGE_SIZES, type CaseListFilters, caseListQueryParams, isSameCaseListQuery, readCaseListQuery } from './case-list-query';
+import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 
 /** The filter form's controls; empty means "any". */
 interface CaseFilterForm {
@@ -57,7 +57,7 @@ const TYPING_PAUSE_MS = 400;
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
     CaseStatusBadge,
-    DatePipe,
+    LocalDatePipe,
     MatButtonModule,
     MatChipsModule,
     MatFormFieldModule,

@@ -168,7 +168,8 @@ describe('CasePage', () => {
     const log = words(element().querySelector('tm-change-record-table tbody'));
     expect(log).toContain('Kit Marlow');
     expect(log).toContain('REF→GM');
-    expect(log).toContain('10 arrow_forward changed to 10.5');
+    // Millimetre readings carry their unit (DESIGN.md §3).
+    expect(log).toContain('10 mm arrow_forward changed to 10.5 mm');
     expect(log).toContain('Read the wrong notch');
   });
 

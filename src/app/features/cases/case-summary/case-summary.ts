@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import {
@@ -12,6 +11,7 @@ import {
   SMOKING_LABELS,
   type CaseDetail,
 } from '@tidemark/shared';
+import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 
 /** One risk factor as a phrase, with whether it raises the risk of rebound or poor healing. */
 interface RiskFactor {
@@ -23,7 +23,7 @@ interface RiskFactor {
 @Component({
   selector: 'tm-case-summary',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [DatePipe, MatIconModule],
+  imports: [LocalDatePipe, MatIconModule],
   templateUrl: './case-summary.html',
   styleUrl: './case-summary.scss',
 })

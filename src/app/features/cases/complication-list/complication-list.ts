@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, output } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -7,6 +6,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { CLAVIEN_DINDO_LABELS, COMPLICATION_TYPE_LABELS, type ComplicationView, type VisitView } from '@tidemark/shared';
 import { filter } from 'rxjs';
 import { ComplicationDialog, type ComplicationDialogData } from '../complication-dialog/complication-dialog';
+import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 
 /** A complication with its words looked up once. */
 interface ComplicationRow {
@@ -21,7 +21,7 @@ interface ComplicationRow {
 @Component({
   selector: 'tm-complication-list',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [DatePipe, MatButtonModule, MatIconModule],
+  imports: [LocalDatePipe, MatButtonModule, MatIconModule],
   templateUrl: './complication-list.html',
   styleUrl: './complication-list.scss',
 })

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input, output } from '@angular/core';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
@@ -6,6 +5,7 @@ import { PHOTO_KIND_LABELS, type PhotoView, type VisitView } from '@tidemark/sha
 import { photoThumbnailUrl } from '../cases-api';
 import { PhotoUpload } from '../photo-upload/photo-upload';
 import { PhotoViewer, type PhotoViewerData } from '../photo-viewer/photo-viewer';
+import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 
 /** A photograph with its caption worked out once. */
 interface PhotoTile {
@@ -19,13 +19,15 @@ interface PhotoTile {
 @Component({
   selector: 'tm-photo-gallery',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [DatePipe, MatIconModule, PhotoUpload],
+  imports: [LocalDatePipe, MatIconModule, PhotoUpload],
   template: `
     @if (canWrite()) {
       <tm-photo-upload [caseId]="caseId()" [visits]="visits()" (uploaded)="uploaded.emit($event)" />
     }
     @if (tiles().length === 0) {
-      <p class="empty">No photographs have been uploaded for this case.</p>
+      <p class="empty">
+        No photographs have been uploaded for this case.{{ canWrite() ? ' Add one above with Choose photograph, then Upload.' : '' }}
+      </p>
     } @else {
       <ul class="tiles">
         @for (tile of tiles(); track tile.photo.id) {
@@ -34,7 +36,7 @@ interface PhotoTile {
               <img [src]="tile.thumbnail" [alt]="tile.kind + ', ' + tile.photo.monthTaken" loading="lazy" />
               <span class="caption">
                 <strong>{{ tile.kind }}</strong>
-                <span>{{ tile.photo.monthTaken | date: 'MMM y' }}{{ tile.visitLabel ? ' · ' + tile.visitLabel : '' }}</span>
+                <span>{{ tile.photo.monthTaken | localDate: 'month' }}{{ tile.visitLabel ? ' · ' + tile.visitLabel : '' }}</span>
               </span>
             </button>
           </li>

@@ -1,10 +1,10 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { PHOTO_KIND_LABELS, type PhotoView } from '@tidemark/shared';
 import { photoUrl } from '../cases-api';
+import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 
 /** What the viewer shows. */
 export interface PhotoViewerData {
@@ -16,14 +16,14 @@ export interface PhotoViewerData {
 @Component({
   selector: 'tm-photo-viewer',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [DatePipe, MatButtonModule, MatDialogModule, MatIconModule],
+  imports: [LocalDatePipe, MatButtonModule, MatDialogModule, MatIconModule],
   template: `
-    <h2 mat-dialog-title>{{ kind }} · {{ data.photo.monthTaken | date: 'MMMM y' }}</h2>
+    <h2 mat-dialog-title>{{ kind }} · {{ data.photo.monthTaken | localDate: 'month-long' }}</h2>
     <mat-dialog-content class="content">
       <img [src]="source" [alt]="kind + ', ' + data.patientCode + ', taken ' + data.photo.monthTaken" />
       <p class="meta">
         {{ data.photo.width }} × {{ data.photo.height }} px · uploaded by {{ data.photo.uploadedBy.displayName }}
-        on {{ data.photo.createdAt | date: 'd MMM y' }}
+        on {{ data.photo.createdAt | localDate }}
       </p>
     </mat-dialog-content>
     <mat-dialog-actions align="end">

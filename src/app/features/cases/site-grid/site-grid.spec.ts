@@ -19,9 +19,9 @@ describe('SiteGrid', () => {
     const headers = [...element.querySelectorAll('thead th')].map(text);
     expect(headers).toEqual([
       'Site',
-      'Baseline REF→GM',
-      'Post-op REF→GM',
-      'Crown gain',
+      'Baseline REF→GM, mm',
+      'Post-op REF→GM, mm',
+      'Crown gain mm',
       '6 weeks 16 Feb 2026',
       '3 months 6 Apr 2026',
     ]);

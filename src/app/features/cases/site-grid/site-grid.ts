@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import {
   DEFAULT_RECALL_SCHEDULE,
@@ -10,6 +9,7 @@ import {
 } from '@tidemark/shared';
 import { MillimetresPipe } from '../../../shared/millimetres/millimetres-pipe';
 import { StabilityBadge } from '../../../shared/stability-badge/stability-badge';
+import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 
 /** One row of the grid: a site and its reading at each visit (null where not measured). */
 interface SiteRow {
@@ -37,7 +37,7 @@ export function visitsInScheduleOrder(visits: readonly VisitView[]): VisitView[]
 @Component({
   selector: 'tm-site-grid',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [DatePipe, MillimetresPipe, StabilityBadge],
+  imports: [LocalDatePipe, MillimetresPipe, StabilityBadge],
   templateUrl: './site-grid.html',
   styleUrl: './site-grid.scss',
 })

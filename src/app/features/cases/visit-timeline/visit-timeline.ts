@@ -1,10 +1,10 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 import { todayIso, type CaseStatus, type VisitView } from '@tidemark/shared';
 import { type TimelineState, recallTimeline, unscheduledVisits } from './recall-timeline';
+import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 
 /** Icon and word per timeline state; coral (`.closed`) always comes with both. */
 export const TIMELINE_LOOK: Readonly<Record<TimelineState, { icon: string; word: string }>> = {
@@ -18,7 +18,7 @@ export const TIMELINE_LOOK: Readonly<Record<TimelineState, { icon: string; word:
 @Component({
   selector: 'tm-visit-timeline',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [DatePipe, MatButtonModule, MatIconModule, RouterLink],
+  imports: [LocalDatePipe, MatButtonModule, MatIconModule, RouterLink],
   templateUrl: './visit-timeline.html',
   styleUrl: './visit-timeline.scss',
 })

@@ -1,15 +1,15 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { OUTBOX_KIND_LABELS, OutboxEntry, canRetry } from '../outbox-entry';
 import { OutboxStatusBadge } from '../outbox-status-badge/outbox-status-badge';
+import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 
 /** One message in full: addressee, state, times, the last error and the body as sent. */
 @Component({
   selector: 'tm-message-detail',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [DatePipe, MatButtonModule, MatIconModule, OutboxStatusBadge],
+  imports: [LocalDatePipe, MatButtonModule, MatIconModule, OutboxStatusBadge],
   templateUrl: './message-detail.html',
   styleUrl: './message-detail.scss',
 })

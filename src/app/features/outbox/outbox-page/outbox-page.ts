@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, signal, viewChild } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -11,6 +10,7 @@ import { MessageDetail } from '../message-detail/message-detail';
 import { OutboxApi } from '../outbox-api';
 import { OUTBOX_KIND_LABELS, OutboxEntry, canRetry, describeScheduleRun } from '../outbox-entry';
 import { OutboxStatusBadge, outboxStatusLook } from '../outbox-status-badge/outbox-status-badge';
+import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 
 /** Columns of the message table, in order. */
 const COLUMNS = ['message', 'to', 'status', 'attempts', 'lastError', 'times', 'actions'] as const;
@@ -27,7 +27,7 @@ export function retryOutcome(entry: OutboxEntry | undefined, to: string): string
 @Component({
   selector: 'tm-outbox-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [DatePipe, MatButtonModule, MatIconModule, MatPaginatorModule, MatProgressBarModule, MatTableModule, MessageDetail, OutboxStatusBadge],
+  imports: [LocalDatePipe, MatButtonModule, MatIconModule, MatPaginatorModule, MatProgressBarModule, MatTableModule, MessageDetail, OutboxStatusBadge],
   templateUrl: './outbox-page.html',
   styleUrl: './outbox-page.scss',
 })

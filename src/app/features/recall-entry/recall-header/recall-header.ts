@@ -1,8 +1,8 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import type { RecallInterval } from '@tidemark/shared';
 import { recallWindow, windowTiming } from '../recall-context';
+import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 
 /** Icon and words for where the visit date falls against the recall window. */
 const TIMING_LOOK = {
@@ -18,7 +18,7 @@ const TIMING_LOOK = {
 @Component({
   selector: 'tm-recall-header',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [DatePipe, MatIconModule],
+  imports: [LocalDatePipe, MatIconModule],
   templateUrl: './recall-header.html',
   styleUrl: './recall-header.scss',
 })

@@ -5,10 +5,12 @@ import { ErrorStateMatcher } from '@angular/material/core';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
+import { MatTooltipModule } from '@angular/material/tooltip';
 import { siteOutcome } from '@tidemark/analytics/site-outcome';
 import { REFERENCE_POINT_LABELS, SITE_LOCATION_LABELS, type SiteView } from '@tidemark/shared';
 import { formRevision } from '../../../shared/forms/form-revision';
 import { LiveErrorStateMatcher } from '../../../shared/forms/live-error-state-matcher';
+import { MEASUREMENT_HELP } from '../../../shared/measurement-help/measurement-help';
 import { fieldMessage } from '../../../shared/forms/zod-validator';
 import { MillimetresPipe } from '../../../shared/millimetres/millimetres-pipe';
 import { StabilityBadge } from '../../../shared/stability-badge/stability-badge';
@@ -23,7 +25,7 @@ import type { MeasurementForm } from '../recall-form';
 @Component({
   selector: 'tm-recall-site-row',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [ReactiveFormsModule, MatCheckboxModule, MatFormFieldModule, MatIconModule, MatInputModule, MillimetresPipe, StabilityBadge],
+  imports: [ReactiveFormsModule, MatCheckboxModule, MatFormFieldModule, MatIconModule, MatInputModule, MatTooltipModule, MillimetresPipe, StabilityBadge],
   providers: [{ provide: ErrorStateMatcher, useClass: LiveErrorStateMatcher }],
   templateUrl: './recall-site-row.html',
   styleUrl: './recall-site-row.scss',
@@ -37,6 +39,12 @@ export class RecallSiteRow {
   readonly previous = input<PreviousReading | null>(null);
   /** The server's large-change note for this row, when it asked for a confirmation. */
   readonly serverNote = input<string | null>(null);
+
+  /**
+   * Each reading's convention (DESIGN.md §3), shown on keyboard focus or hover and read out as the
+   * field's description; a tooltip adds no tab stop, so Tab still runs straight along the row.
+   */
+  protected readonly help = MEASUREMENT_HELP;
 
   private readonly revision = formRevision(this.group);
 

@@ -1,9 +1,9 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 import type { RecallDueItem, RecallDueState } from '@tidemark/shared';
+import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 
 /** Icon and word per recall state; coral marks overdue, always with both. */
 export const RECALL_STATE_LOOK: Readonly<Record<RecallDueState, { icon: string; word: string }>> = {
@@ -40,7 +40,7 @@ export function windowDistance(item: RecallDueItem, asOf: string): string {
 @Component({
   selector: 'tm-recall-card',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [DatePipe, MatButtonModule, MatIconModule, RouterLink],
+  imports: [LocalDatePipe, MatButtonModule, MatIconModule, RouterLink],
   templateUrl: './recall-card.html',
   styleUrl: './recall-card.scss',
   host: { '[class]': 'item().state' },

@@ -1,4 +1,4 @@
-import { DOCUMENT, DatePipe } from '@angular/common';
+import { DOCUMENT } from '@angular/common';
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -10,6 +10,7 @@ import type { OperatorView, RecallDueItem, RecallDueList } from '@tidemark/share
 import { AuthSession } from '../../../core/auth/auth-session';
 import { RecallCard } from '../recall-card/recall-card';
 import { TodayApi } from '../today-api';
+import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 
 /** One group of the Today page. */
 interface RecallGroup {
@@ -31,7 +32,7 @@ const GROUPS: readonly Omit<RecallGroup, 'items'>[] = [
     countLabel: 'in window now',
     icon: 'event_available',
     hint: 'Seen now, these recalls count as on time. Soonest-closing first.',
-    empty: 'No recall window is open today.',
+    empty: 'No recall window is open today. Windows opening soon are listed under Coming up.',
   },
   {
     key: 'overdue',
@@ -47,7 +48,7 @@ const GROUPS: readonly Omit<RecallGroup, 'items'>[] = [
     countLabel: 'coming up in 14 days',
     icon: 'upcoming',
     hint: 'Windows that open within the next two weeks, for booking.',
-    empty: 'No recall window opens in the next 14 days.',
+    empty: 'No recall window opens in the next 14 days. New cases join this list once their surgery is recorded.',
   },
 ];
 
@@ -55,7 +56,7 @@ const GROUPS: readonly Omit<RecallGroup, 'items'>[] = [
 @Component({
   selector: 'tm-today-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [DatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatProgressBarModule, MatSelectModule, RecallCard],
+  imports: [LocalDatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatProgressBarModule, MatSelectModule, RecallCard],
   templateUrl: './today-page.html',
   styleUrl: './today-page.scss',
 })
