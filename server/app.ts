@@ -5,14 +5,13 @@ import cookieParser from 'cookie-parser';
 import express, { type Express, type RequestHandler } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
-import { pinoHttp } from 'pino-http';
 import type { DataSource } from 'typeorm';
 import { createCsrfProtection } from './auth/csrf';
 import { OWASP_SCRYPT_COST, type ScryptCost } from './auth/password';
 import { createPassport } from './auth/passport-setup';
 import { DatabaseSessionStore } from './auth/session-store';
 import { errorHandler } from './middleware/error-handler';
-import { requestLogProps, requestLogSerializers } from './middleware/request-log';
+import { requestLogger } from './middleware/request-logger';
 import { secondFactorGate } from './auth/second-factor-gate';
 import { SecondFactorService } from './services/second-factor.service';
 import { secondFactorRoutes } from './routes/second-factor.routes';
@@ -204,15 +203,8 @@ export function createApp(options: AppOptions): TidemarkApp {
   app.disable('x-powered-by');
   if (options.trustProxy !== undefined) app.set('trust proxy', options.trustProxy);
 
-  app.use(
-    pinoHttp({
-      level: options.logLevel ?? 'info',
-      // Method, path (no query), status and member id: see middleware/request-log.ts.
-      serializers: requestLogSerializers,
-      customProps: requestLogProps,
-      autoLogging: { ignore: (req) => req.url === '/api/health' },
-    }),
-  );
+  // pino-http; above `info`, where it writes no request line, only `req.log` (see the module).
+  app.use(requestLogger(options.logLevel ?? 'info'));
   app.use(
     helmet({
       contentSecurityPolicy: {

@@ -8,6 +8,9 @@ export const XSRF_HEADER = 'x-xsrf-token';
 
 const UNSAFE_METHODS = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
 
+/** How many sessions' last valid cookie token {@link createCsrfProtection} remembers. */
+export const VALID_COOKIE_MEMORY = 1024;
+
 /** CSRF protection: a signed double-submit token bound to the session, plus an origin check. */
 export interface CsrfProtection {
   /** Issues a token when the request lacks a valid one; refuses unsafe requests without one. */
@@ -32,12 +35,36 @@ export function createCsrfProtection(secret: string): CsrfProtection {
     generateCsrfToken(req, res, { overwrite, cookieOptions: { httpOnly: false, sameSite: 'lax', path: '/', secure: req.secure } });
   };
 
+  /**
+   * Session id → the cookie token last found valid for it. Whether a token is valid is a pure
+   * function of the secret, the session id and the token (an HMAC, no expiry), so a token seen
+   * valid for a session stays valid for it: safe requests then skip the HMAC and the probe. Only
+   * tokens that passed the check get in (no one can fill it without the secret); at most
+   * {@link VALID_COOKIE_MEMORY} sessions, the longest unseen dropped first.
+   */
+  const validCookies = new Map<string, string>();
+
   /** Validates the cookie on its own by probing with a request whose header repeats the cookie. */
   const hasValidCookie = (req: Request): boolean => {
     const cookie: unknown = req.cookies?.[XSRF_COOKIE];
     if (typeof cookie !== 'string' || cookie === '') return false;
+    const sessionId = req.sessionID;
+    const remembered = validCookies.get(sessionId);
+    if (remembered === cookie) {
+      // Re-inserted so that the Map's first key is always the longest unseen.
+      validCookies.delete(sessionId);
+      validCookies.set(sessionId, cookie);
+      return true;
+    }
     const probe = Object.create(req, { headers: { value: { ...req.headers, [XSRF_HEADER]: cookie } } }) as Request;
-    return validateRequest(probe);
+    if (!validateRequest(probe)) return false;
+    validCookies.delete(sessionId);
+    validCookies.set(sessionId, cookie);
+    if (validCookies.size > VALID_COOKIE_MEMORY) {
+      const oldest = validCookies.keys().next().value;
+      if (oldest !== undefined) validCookies.delete(oldest);
+    }
+    return true;
   };
 
   const isCrossSite = (req: Request): boolean => {

@@ -1,3 +1,4 @@
+import type { Request } from 'express';
 import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import type { UserService } from '../services/user.service';
@@ -20,11 +21,15 @@ export function createPassport(users: UserService) {
     }),
   );
   instance.serializeUser((user, done) => done(null, user.id));
-  instance.deserializeUser((id: number, done) => {
+  instance.deserializeUser<number, Request>((req, id, done) => {
     users
-      .findActiveSessionUser(id)
-      // An unknown or deactivated user yields `false`: passport then drops the login.
-      .then((user) => done(null, user ?? false))
+      .findSessionPrincipal(id)
+      .then((principal) => {
+        // Read with the user in the same statement, for the second-factor gate that runs next.
+        req.secondFactorEnabledAt = principal?.secondFactorEnabledAt;
+        // An unknown or deactivated user yields `false`: passport then drops the login.
+        done(null, principal?.user ?? false);
+      })
       .catch((error: unknown) => done(error));
   });
   return instance;

@@ -29,7 +29,8 @@ export function secondFactorGate(secondFactors: SecondFactorService): RequestHan
     if (!req.user) return next();
     const user = req.user;
     secondFactors
-      .stateFor(user, req.session.secondFactorVerifiedFor)
+      // The set-up as read with the session's user a moment ago (passport-setup.ts): no second query.
+      .stateFor(user, req.session.secondFactorVerifiedFor, req.secondFactorEnabledAt)
       .then((state) => refusal(req, state))
       .then((error) => {
         if (error !== 'expired') return next(error);

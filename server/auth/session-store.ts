@@ -2,6 +2,7 @@ import session from 'express-session';
 import type { DataSource, Repository } from 'typeorm';
 import { LessThan } from 'typeorm';
 import { SessionRow } from '../entities/session.entity';
+import { portableSql } from '../portable-sql';
 
 /** Fallback lifetime for a row whose cookie has no expiry (never the case with our settings). */
 const DEFAULT_TTL_MS = 30 * 60 * 1000;
@@ -21,23 +22,34 @@ export const TOUCH_AFTER_MS = 60 * 1000;
  */
 export class DatabaseSessionStore extends session.Store {
   private readonly rows: Repository<SessionRow>;
+  private readonly dataSource: DataSource;
+  /**
+   * The read every request makes, as one parameterised statement: through the repository
+   * (`findOneBy`) TypeORM built the same SELECT anew each time, several times the cost of running
+   * it (about 25 µs against 4 µs, measured alone on the two-core development machine).
+   */
+  private readonly selectRow: string;
   /** Expiry as stored, per session id: refreshed from the row on every read, so edits elsewhere are seen. */
   private readonly storedExpiry = new Map<string, number>();
 
   constructor(dataSource: DataSource) {
     super();
+    this.dataSource = dataSource;
     this.rows = dataSource.getRepository(SessionRow);
+    this.selectRow = portableSql(dataSource, 'SELECT data, expires_at FROM "session" WHERE sid = ?');
   }
 
   override get(sid: string, callback: (error: unknown, data?: session.SessionData | null) => void): void {
-    this.rows
-      .findOneBy({ sid })
-      .then((row) => {
-        if (!row || Number(row.expiresAt) <= Date.now()) {
+    this.dataSource
+      .query<Array<{ data: string; expires_at: number | string }>>(this.selectRow, [sid])
+      .then(([row]) => {
+        // PostgreSQL returns bigint as a string; epoch milliseconds stay far below 2^53.
+        const expiresAt = row ? Number(row.expires_at) : 0;
+        if (!row || expiresAt <= Date.now()) {
           this.storedExpiry.delete(sid);
           return callback(null, null);
         }
-        this.storedExpiry.set(sid, Number(row.expiresAt));
+        this.storedExpiry.set(sid, expiresAt);
         callback(null, JSON.parse(row.data) as session.SessionData);
       })
       .catch((error: unknown) => callback(error));

@@ -22,6 +22,15 @@ declare global {
       displayName: string;
       role: Role;
     }
+
+    interface Request {
+      /**
+       * When the signed-in user's one-time codes were switched on (epoch ms; null when off), read
+       * together with the user as the session was loaded (passport-setup.ts), so that the
+       * second-factor gate needs no query of its own. Undefined when no user was loaded.
+       */
+      secondFactorEnabledAt?: number | null;
+    }
   }
 }
 

@@ -1,4 +1,4 @@
-import { Router, type RequestHandler } from 'express';
+import { Router, type RequestHandler, type Response } from 'express';
 import multer from 'multer';
 import { caseCreateSchema, caseListQuerySchema, caseUpdateSchema, complicationCreateSchema, PHOTO_MAX_BYTES, photoUploadSchema, siteCreateSchema, visitCreateSchema } from '@tidemark/shared';
 import { HttpError } from '../http-error';
@@ -36,13 +36,36 @@ function singlePhoto(): RequestHandler {
   };
 }
 
+/** ETags of cached case list pages: a cached page's bytes never change, so each is hashed once, not per request. */
+const pageEtags = new WeakMap<Buffer, string>();
+
+/**
+ * The ETag `res.send` would compute for `body` — with the app's own `etag fn`, so the header is the
+ * one Express sends (weak, by default) — remembered per cached page. Undefined when ETags are off.
+ */
+function cachedPageEtag(res: Response, body: Buffer): string | undefined {
+  const etagOf: unknown = res.app.get('etag fn');
+  if (typeof etagOf !== 'function') return undefined;
+  let etag = pageEtags.get(body);
+  if (etag === undefined) {
+    etag = String(etagOf(body));
+    pageEtags.set(body, etag);
+  }
+  return etag;
+}
+
 /** `/api/cases` and the records that hang off a case. */
 export function caseRoutes(services: CaseRouteServices): Router {
   const router = Router();
   router.use(requireAuth);
 
   router.get('/', async (req, res) => {
-    res.json(await services.cases.list(req.user as Express.User, parseOrThrow(caseListQuerySchema, req.query)));
+    const body = await services.cases.listJson(req.user as Express.User, parseOrThrow(caseListQuerySchema, req.query));
+    // Already JSON (kept serialised by the case list cache): the same bytes and headers res.json would send.
+    res.setHeader('Content-Type', 'application/json; charset=utf-8');
+    const etag = cachedPageEtag(res, body);
+    if (etag) res.setHeader('ETag', etag);
+    res.send(body);
   });
   router.post('/', validateBody(caseCreateSchema), async (req, res) => {
     res.status(201).json(await services.cases.create(req.user as Express.User, req.body));

@@ -13,11 +13,13 @@ import { Site } from '../entities/site.entity';
 import { SurgicalCase } from '../entities/surgical-case.entity';
 import { Visit } from '../entities/visit.entity';
 import { HttpError } from '../http-error';
+import { CaseListCache } from './case-list-cache';
 import { appendChanges, changedValues, diffFields } from './change-log';
 import { clinicalAccess } from './clinical-access';
 import { asBoolean, mapChangeRecord, mapComplication, mapMeasurement, mapPatient, mapPhoto, mapSite, mapVisit } from './clinical-mappers';
 import type { OperatorDirectory } from './operator-directory';
 import type { PatientService } from './patient.service';
+import type { GenerationCacheStats } from './generation-cache';
 import { updateWithVersion } from './versioned-update';
 
 type CaseCreate = z.output<typeof caseCreateSchema>;
@@ -53,11 +55,15 @@ export function planningMessages(sites: Site[]): PlanningCheck[] {
 
 /** Cases: list, detail, registration and edits, with ownership rules and change history. */
 export class CaseService {
+  private readonly listCache: CaseListCache;
+
   constructor(
     private readonly dataSource: DataSource,
     private readonly operators: OperatorDirectory,
     private readonly patients: PatientService,
-  ) {}
+  ) {
+    this.listCache = new CaseListCache(dataSource);
+  }
 
   /** The default entity manager, for checks outside a transaction. */
   get manager(): EntityManager {
@@ -76,8 +82,29 @@ export class CaseService {
     return found;
   }
 
+  /**
+   * {@link list}'s page as the JSON bytes to send, from the case list cache while nothing it shows
+   * has changed (see CaseListCache for the rule). The role check comes first, never from the cache.
+   */
+  async listJson(user: Express.User, query: CaseListQuery): Promise<Buffer> {
+    clinicalAccess.assertPatientLevel(user);
+    const ownerId = this.listOwner(user);
+    return this.listCache.getOrCompute(ownerId === null ? 'all' : `operator:${ownerId}`, query, () => this.list(user, query));
+  }
+
+  /** Hits and misses of the case list cache. */
+  listCacheStats(): GenerationCacheStats {
+    return this.listCache.stats();
+  }
+
+  /** Whose cases `user` lists: a clinician only their own (DESIGN.md §2), the roles that read all every case (null). */
+  private listOwner(user: Express.User): number | null {
+    return user.role === 'clinician' ? user.id : null;
+  }
+
   async list(user: Express.User, query: CaseListQuery): Promise<CaseListPage> {
     clinicalAccess.assertPatientLevel(user);
+    const ownerId = this.listOwner(user);
     const builder = this.dataSource
       .getRepository(SurgicalCase)
       .createQueryBuilder('c')
@@ -86,7 +113,7 @@ export class CaseService {
       .select(['c.id AS id', 'p.code AS patient_code', 'p.phenotype AS phenotype', 'c.operator_id AS operator_id', 'u.display_name AS operator_name'])
       .addSelect(['c.surgery_date AS surgery_date', 'c.procedure AS procedure', 'c.indication AS indication', 'c.status AS status'])
       .addSelect('(SELECT COUNT(*) FROM visit v WHERE v.case_id = c.id)', 'visit_count');
-    if (user.role === 'clinician') builder.andWhere('c.operator_id = :self', { self: user.id });
+    if (ownerId !== null) builder.andWhere('c.operator_id = :self', { self: ownerId });
     if (query.operatorId) builder.andWhere('c.operator_id = :operatorId', { operatorId: query.operatorId });
     if (query.procedure) builder.andWhere('c.procedure = :procedure', { procedure: query.procedure });
     if (query.status) builder.andWhere('c.status = :status', { status: query.status });

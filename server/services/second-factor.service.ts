@@ -16,7 +16,9 @@ import { base32Secret, matchTotpStep, newTotpSecret, TOTP_SETTINGS, totpKeyUri }
 import { RecoveryCode } from '../entities/recovery-code.entity';
 import { UserSecondFactor } from '../entities/user-second-factor.entity';
 import { User } from '../entities/user.entity';
+import { columnHydrator } from '../column-hydrator';
 import { HttpError } from '../http-error';
+import { portableSql } from '../portable-sql';
 
 /** How long a secret handed out for enrolment can still be confirmed. */
 export const ENROLMENT_VALID_MS = 15 * 60 * 1000;
@@ -26,6 +28,18 @@ const ISSUER = 'Tidemark';
 
 const INVALID_CODE_MESSAGE = 'That code is not right, or it was used already. Wait for the next code and try again.';
 const INVALID_RECOVERY_MESSAGE = 'That recovery code is not right, or it was used already.';
+
+/**
+ * `user_second_factor.enabled_at` as the entity reads it (a `Date`, or null) in epoch ms, or
+ * null when codes are off. Fails closed: a value that is not a time must never read as "off".
+ *
+ * @throws {Error} when the value is neither null nor a valid `Date`
+ */
+export function enabledAtMillis(hydrated: unknown): number | null {
+  if (hydrated === null || hydrated === undefined) return null;
+  if (!(hydrated instanceof Date) || Number.isNaN(hydrated.getTime())) throw new Error('A one-time-code set-up has an unreadable enabled_at.');
+  return hydrated.getTime();
+}
 
 /** Options for {@link SecondFactorService}. */
 export interface SecondFactorOptions {
@@ -47,6 +61,10 @@ export class SecondFactorService {
   private readonly users: Repository<User>;
   private readonly box: SecretBox;
   private readonly clock: () => number;
+  /** {@link enabledAt}'s statement (the gate has the value from the session's user lookup; sign-in and `GET /auth/me` ask here). */
+  private readonly selectEnabledAt: string;
+  /** `enabled_at` as the entity reads it (SQLite keeps UTC text, PostgreSQL a timestamptz). */
+  private readonly hydrateEnabledAt: (raw: unknown) => unknown;
 
   constructor(
     private readonly dataSource: DataSource,
@@ -59,21 +77,28 @@ export class SecondFactorService {
     this.users = dataSource.getRepository(User);
     this.box = new SecretBox(options.appSecret, 'totp-secret');
     this.clock = options.clock ?? Date.now;
+    this.selectEnabledAt = portableSql(dataSource, 'SELECT enabled_at FROM user_second_factor WHERE user_id = ?');
+    this.hydrateEnabledAt = columnHydrator(dataSource, UserSecondFactor, 'enabledAt');
   }
 
-  /** When the person's one-time codes were switched on (epoch ms), or null when they are off. */
+  /**
+   * When the person's one-time codes were switched on (epoch ms), or null when they are off. One
+   * parameterised statement, not `findOne`, whose query building cost several times the query.
+   */
   async enabledAt(userId: number): Promise<number | null> {
-    const row = await this.factors.findOne({ where: { userId }, select: { userId: true, enabledAt: true } });
-    return row?.enabledAt ? new Date(row.enabledAt).getTime() : null;
+    const [row] = await this.dataSource.query<Array<{ enabled_at: unknown }>>(this.selectEnabledAt, [userId]);
+    return row ? enabledAtMillis(this.hydrateEnabledAt(row.enabled_at)) : null;
   }
 
   /**
    * Where a session stands. `verifiedFor` is the `enabledAt` of the set-up whose code was
    * checked in this session: if the person switched codes on (or on again) elsewhere since,
-   * this session must show a code of the current set-up too.
+   * this session must show a code of the current set-up too. `enabledAtAsRead` is the set-up's
+   * `enabledAt` when the caller read it already in this request (the gate: together with the
+   * session's user, see UserService.findSessionPrincipal); left out, it is read now.
    */
-  async stateFor(user: Express.User, verifiedFor: number | undefined): Promise<SecondFactorState> {
-    const enabledAt = await this.enabledAt(user.id);
+  async stateFor(user: Express.User, verifiedFor: number | undefined, enabledAtAsRead?: number | null): Promise<SecondFactorState> {
+    const enabledAt = enabledAtAsRead === undefined ? await this.enabledAt(user.id) : enabledAtAsRead;
     if (enabledAt !== null) return verifiedFor === enabledAt ? 'verified' : 'pending';
     return isSecondFactorRequired(user.role, this.policy) ? 'enrolment-required' : 'none';
   }
