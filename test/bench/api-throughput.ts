@@ -14,8 +14,9 @@
  *    cache while nothing changes) — goal: p99 ≤ 150 ms;
  *  - `GET /api/auth/me`, for context only (no goal): the cheapest signed-in request, i.e. what the
  *    shared middleware (session read, user, second-factor state, CSRF check, helmet, logging) costs.
- * Prints one line per endpoint, name "api-throughput": value = req/s, floor = the floor's req/s,
- * ratio, p99Ms and floorP99Ms, signedInBaseline (req/s of /api/auth/me), the server's peak RSS.
+ * Prints one line per endpoint, name "api-throughput". Case list: value = req/s, floor = the floor's
+ * req/s, ratio. Results (a latency goal): value = p99 ms, floor = the floor's p99, ratio, with
+ * requestsPerSecond and requestsRatio beside them. Both carry p99Ms and floorP99Ms, signedInBaseline (req/s of /api/auth/me), the server's peak RSS.
  */
 import autocannon from 'autocannon';
 import * as z from 'zod';
@@ -100,13 +101,16 @@ async function main(): Promise<void> {
     printBenchLine({
       name: 'api-throughput',
       endpoint: 'GET /api/audits/:id/results',
-      value: results.requestsPerSecond,
-      floor,
-      ratio: ratioOf(results.requestsPerSecond, floor),
+      // The goal is a latency, so value, floor and ratio are p99s here (the floor's p99 beside it).
+      value: results.p99Ms,
+      floor: floorP99Ms,
+      ratio: ratioOf(results.p99Ms, floorP99Ms),
       goal: 150,
-      unit: 'req/s',
+      unit: 'ms (p99)',
       met: results.p99Ms <= 150 && results.errors === 0,
       criteria: 'p99 <= 150 ms (unchanged results served from the cache)',
+      requestsPerSecond: results.requestsPerSecond,
+      requestsRatio: ratioOf(results.requestsPerSecond, floor),
       p99Ms: results.p99Ms,
       errors: results.errors,
       ...common,
