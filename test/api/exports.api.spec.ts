@@ -29,14 +29,7 @@ async function exportAs(w: ClinicalWorld, client: ApiClient, auditId: number, cy
 
 /** Downloads a finished workbook as bytes. */
 async function download(client: ApiClient, jobId: string) {
-  return client.agent
-    .get(`/api/exports/${jobId}/file`)
-    .buffer(true)
-    .parse((res, done) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (chunk: Buffer) => chunks.push(chunk));
-      res.on('end', () => done(null, Buffer.concat(chunks)));
-    });
+  return client.getBytes(`/api/exports/${jobId}/file`);
 }
 
 async function openWorkbook(bytes: Buffer): Promise<ExcelJS.Workbook> {

@@ -210,11 +210,7 @@ describe('historical import', () => {
     });
 
     it('template.xlsx has the data sheet with the same header and a column guide', async () => {
-      const response = await w.as('audit_lead').agent.get('/api/imports/template.xlsx').buffer(true).parse((res, done) => {
-        const chunks: Buffer[] = [];
-        res.on('data', (chunk: Buffer) => chunks.push(chunk));
-        res.on('end', () => done(null, Buffer.concat(chunks)));
-      });
+      const response = await w.as('audit_lead').getBytes('/api/imports/template.xlsx');
       expect(response.status).toBe(200);
       const workbook = new ExcelJS.Workbook();
       await workbook.xlsx.load(response.body);

@@ -137,11 +137,7 @@ describe('photos: content checks, metadata stripping and serving (DESIGN.md §7)
       expect.objectContaining({ kind: 'pre-operative', contentType: 'image/jpeg', width: 48, height: 64, monthTaken: '2025-01', visitId: null, uploadedBy: { id: w.ids.clinician, displayName: 'Dr Cal Clinician (demo)' } }),
     );
 
-    const download = await w.as('clinician').agent.get(`/api/photos/${photo.id}`).buffer(true).parse((res, callback) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (chunk: Buffer) => chunks.push(chunk));
-      res.on('end', () => callback(null, Buffer.concat(chunks)));
-    });
+    const download = await w.as('clinician').getBytes(`/api/photos/${photo.id}`);
     expect(download.status).toBe(200);
     expect(download.headers['content-type']).toBe('image/jpeg');
     const bytes = download.body as Buffer;
@@ -159,11 +155,7 @@ describe('photos: content checks, metadata stripping and serving (DESIGN.md §7)
 
   it('serves a WebP thumbnail without metadata', async () => {
     const photo = expectStatus(await uploadPhoto(w.as('clinician'), found.id, await jpegWithExif()), 201).body as PhotoView;
-    const thumbnail = await w.as('clinician').agent.get(`/api/photos/${photo.id}/thumbnail`).buffer(true).parse((res, callback) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (chunk: Buffer) => chunks.push(chunk));
-      res.on('end', () => callback(null, Buffer.concat(chunks)));
-    });
+    const thumbnail = await w.as('clinician').getBytes(`/api/photos/${photo.id}/thumbnail`);
     expect(thumbnail.status).toBe(200);
     expect(thumbnail.headers['content-type']).toBe('image/webp');
     const meta = await sharp(thumbnail.body as Buffer).metadata();
@@ -185,6 +177,21 @@ describe('photos: content checks, metadata stripping and serving (DESIGN.md §7)
     expect(Object.keys(refused.body.error.fields)).toEqual(['visitId']);
     expect(await countRows(w.t, 'photo')).toBe(before);
     expect(storedFiles(w)).toHaveLength(files);
+  });
+
+  it('refuses a visit id in any but canonical decimal form (0x1, +1, 01…): 400 naming visitId', async () => {
+    // Canonical decimal ids only, the rule of route ids (server/routes/route-params.ts). Each form below names a real
+    // visit of this very case, so only the form can make the refusal; `0x1` itself is refused too.
+    const own = await createCase(w.as('clinician'), w.ids.clinician);
+    const withVisit = expectStatus(await w.as('clinician').post(`/api/cases/${own.id}/visits`, visitBody([{ siteId: own.sites[0].id, refGm: 9.5 }])), 201).body as CaseDetail;
+    const id = withVisit.visits[0].id;
+    const bytes = await smallPng();
+    for (const visitId of ['0x1', `0x${id.toString(16)}`, `+${id}`, `0${id}`, `${id}e0`, ` ${id}`, `${id}.0`]) {
+      const response = await expectRefused(() => uploadPhoto(w.as('clinician'), own.id, bytes, 'p.png', 'image/png', { kind: 'recall', visitId }), 400, 'validation');
+      expect(Object.keys(response.body.error.fields ?? {}), visitId).toEqual(['visitId']);
+    }
+    // The canonical form of the same id is accepted.
+    expect((await uploadPhoto(w.as('clinician'), own.id, bytes, 'p.png', 'image/png', { kind: 'recall', visitId: String(id) })).status).toBe(201);
   });
 
   /** Uploads and expects a refusal with nothing stored, neither row nor file. */

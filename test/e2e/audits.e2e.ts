@@ -1,29 +1,14 @@
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { launchBrowser, screenshotPath } from './support/browser';
 import { startServer, type RunningServer } from './support/server';
+import { chooseWithoutWaiting } from './support/material-select';
+import { watchProblems } from './support/page-problems';
 import { signIn } from './support/sign-in';
 
 /** The demo audit the seed creates (server/demo/seed-demo-audits.ts). */
 const DEMO_AUDIT = 'Margin stability after aesthetic crown lengthening';
 /** Patient codes as the demo practice writes them; governance must never meet one. */
 const PATIENT_CODE = /HP-\d{4}/;
-
-/** Console errors other than the expected 401 of "who am I?" before sign-in. */
-function watchProblems(page: Page): string[] {
-  const problems: string[] = [];
-  page.on('console', (message) => {
-    if (message.type() === 'error' && !/status of 401/.test(message.text())) problems.push(message.text());
-  });
-  page.on('pageerror', (error) => problems.push(error.message));
-  return problems;
-}
-
-/** Opens a Material select from the keyboard (its floating label covers it for the mouse) and picks an option. */
-async function choose(page: Page, label: string, option: string | RegExp): Promise<void> {
-  await page.getByRole('combobox', { name: label }).focus();
-  await page.keyboard.press('Enter');
-  await page.getByRole('option', { name: option, exact: typeof option === 'string' }).click();
-}
 
 /** The live cohort count as shown ("12 cases · 9 patients · 20 sites"), once a count has arrived. */
 async function cohortCount(page: Page): Promise<string> {
@@ -132,8 +117,8 @@ describe('audits journey in Chromium', () => {
       await page.getByRole('button', { name: 'Add standard' }).click();
       const dialog = page.getByRole('dialog');
       await dialog.getByLabel('Criterion').fill(standard.criterion);
-      await choose(page, 'Measure', standard.measure);
-      await choose(page, 'Recall interval', '6 months');
+      await chooseWithoutWaiting(page, 'Measure', standard.measure);
+      await chooseWithoutWaiting(page, 'Recall interval', '6 months');
       await dialog.getByLabel('Target').fill(standard.target);
       await dialog.getByLabel('Evidence source').fill('Practice standard');
       await dialog.getByRole('button', { name: 'Add standard' }).click();

@@ -3,6 +3,8 @@ import ExcelJS from 'exceljs';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { RESULTS_DIR, launchBrowser } from './support/browser';
 import { startServer, type RunningServer } from './support/server';
+import { chooseWithoutWaiting } from './support/material-select';
+import { watchProblems } from './support/page-problems';
 import { signIn } from './support/sign-in';
 import { screenshotWholePage } from './support/whole-page-screenshot';
 
@@ -14,29 +16,12 @@ const PATIENT_CODE = /HP-\d{4}/;
 /** The machine running these may be busy (scrypt sign-in, lazy chunks); waits get a minute, not 30 s. */
 const PATIENT_WAIT_MS = 60_000;
 
-/** Console errors other than the expected 401 of "who am I?" before sign-in. */
-function watchProblems(page: Page): string[] {
-  const problems: string[] = [];
-  page.on('console', (message) => {
-    if (message.type() === 'error' && !/status of 401/.test(message.text())) problems.push(message.text());
-  });
-  page.on('pageerror', (error) => problems.push(error.message));
-  return problems;
-}
-
-/** Opens a Material select from the keyboard (its floating label covers it for the mouse) and picks an option. */
-async function choose(page: Page, label: string, option: string | RegExp): Promise<void> {
-  await page.getByRole('combobox', { name: label }).focus();
-  await page.keyboard.press('Enter');
-  await page.getByRole('option', { name: option, exact: typeof option === 'string' }).click();
-}
-
 /** Opens Reports from the menu and sets the demo audit's reported cycle as the scope. */
 async function openReportsOnFrozenCycle(page: Page): Promise<void> {
   await page.getByRole('navigation', { name: 'Main navigation' }).getByRole('link', { name: /Reports/ }).click();
   await page.getByRole('heading', { name: 'Reports', level: 1 }).waitFor();
-  await choose(page, 'Audit', DEMO_AUDIT);
-  await choose(page, 'Scope', /^Cycle 1 .*Reported, frozen$/);
+  await chooseWithoutWaiting(page, 'Audit', DEMO_AUDIT);
+  await chooseWithoutWaiting(page, 'Scope', /^Cycle 1 .*Reported, frozen$/);
   await page.getByText('Frozen when the cycle was reported').waitFor();
 }
 

@@ -2,6 +2,8 @@ import type { Browser, BrowserContext, Locator, Page } from 'playwright-core';
 import type { CaseDetail, RecallDueList } from '@tidemark/shared';
 import { launchBrowser } from './support/browser';
 import { startServer, type RunningServer } from './support/server';
+import { chooseWithoutWaiting } from './support/material-select';
+import { watchProblems } from './support/page-problems';
 import { DEMO_ACCOUNTS, signIn } from './support/sign-in';
 import { screenshotWholePage } from './support/whole-page-screenshot';
 
@@ -11,26 +13,9 @@ function millimetres(text: string): number | null {
   return match ? Number(match[1]) : null;
 }
 
-/** Console errors other than the expected 401 of "who am I?" before sign-in. */
-function watchProblems(page: Page): string[] {
-  const problems: string[] = [];
-  page.on('console', (message) => {
-    if (message.type() === 'error' && !/status of 401/.test(message.text())) problems.push(message.text());
-  });
-  page.on('pageerror', (error) => problems.push(error.message));
-  return problems;
-}
-
 async function signInAsClinician(page: Page, baseUrl: string): Promise<void> {
   await signIn(page, baseUrl, DEMO_ACCOUNTS.clinician);
   await page.waitForURL(/\/today$/);
-}
-
-/** Opens a Material select from the keyboard (its floating label covers it for the mouse) and picks an option. */
-async function choose(page: Page, label: string, option: string | RegExp): Promise<void> {
-  await page.getByRole('combobox', { name: label }).focus();
-  await page.keyboard.press('Enter');
-  await page.getByRole('option', { name: option, exact: typeof option === 'string' }).click();
 }
 
 describe('recall entry journey in Chromium', () => {
@@ -151,17 +136,17 @@ describe('recall entry journey in Chromium', () => {
     const code = `E2E-${Date.now().toString(36).toUpperCase().slice(-6)}`;
     await page.getByLabel('Patient code').fill(code);
     await page.getByLabel('Birth year').fill('1981');
-    await choose(page, 'Sex', 'Female');
-    await choose(page, 'Smoking', 'Current smoker');
+    await chooseWithoutWaiting(page, 'Sex', 'Female');
+    await chooseWithoutWaiting(page, 'Smoking', 'Current smoker');
     await page.getByLabel('Cigarettes a day').fill('5');
-    await choose(page, 'Diabetes', 'No diabetes');
-    await choose(page, 'Gingival phenotype', /Thin/);
-    await choose(page, 'Phenotype assessed by', 'Probe visible through the margin');
+    await chooseWithoutWaiting(page, 'Diabetes', 'No diabetes');
+    await chooseWithoutWaiting(page, 'Gingival phenotype', /Thin/);
+    await chooseWithoutWaiting(page, 'Phenotype assessed by', 'Probe visible through the margin');
     await page.getByRole('button', { name: /Next: surgery plan/ }).click();
 
-    await choose(page, 'Procedure', 'Apically positioned flap');
-    await choose(page, 'Indication', /caries/);
-    await choose(page, 'Instrument', 'Scalpel');
+    await chooseWithoutWaiting(page, 'Procedure', 'Apically positioned flap');
+    await chooseWithoutWaiting(page, 'Indication', /caries/);
+    await chooseWithoutWaiting(page, 'Instrument', 'Scalpel');
     await page.getByLabel('Hygiene phase completed').check();
     await page.getByRole('button', { name: /Next: teeth/ }).click();
 

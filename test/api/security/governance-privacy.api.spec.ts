@@ -113,17 +113,6 @@ async function workbookText(bytes: Buffer, directory: string): Promise<{ name: s
   return parts;
 }
 
-async function downloadBytes(client: ApiClient, url: string) {
-  return client.agent
-    .get(url)
-    .buffer(true)
-    .parse((res, done) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (chunk: Buffer) => chunks.push(chunk));
-      res.on('end', () => done(null, Buffer.concat(chunks)));
-    });
-}
-
 interface Ids {
   auditId: number;
   cycleIds: [number, number];
@@ -238,7 +227,7 @@ describe('governance sees de-identified results only (DESIGN.md §2, §7)', () =
       const findings: Finding[] = [];
       for (const url of GOVERNANCE_READS[key](ids)) {
         if (key.endsWith('/file')) {
-          const response = await downloadBytes(governance, url);
+          const response = await governance.getBytes(url);
           expect(response.status, url).toBe(200);
           for (const part of await workbookText(response.body as Buffer, directory)) {
             findings.push(...scanText(`${url} ${part.name}`, part.text, forbidden));

@@ -1,7 +1,9 @@
 import type { Page } from 'playwright-core';
 import { screenshotWholePage } from '../support/whole-page-screenshot';
 import { DEMO_ACCOUNTS, signIn } from '../support/sign-in';
-import { choose, newJourneyContext, pictureOnFailure, squash, watchProblems, type JourneyWorld } from './support/journey-kit';
+import { choose } from '../support/material-select';
+import { watchProblems } from '../support/page-problems';
+import { newJourneyContext, pictureOnFailure, squash, type JourneyWorld } from './support/journey-kit';
 
 /** The live cohort count ("12 cases · 9 patients · 20 sites") once one has arrived, differs from `previous`, and no newer one is on its way. */
 async function settledCount(page: Page, previous: string | null): Promise<string> {

@@ -4,7 +4,8 @@ import { screenshotWholePage } from '../support/whole-page-screenshot';
 import { DEMO_ACCOUNTS, signIn } from '../support/sign-in';
 import { generateClinicalPhoto } from './support/clinical-photo';
 import { focused, pressAndLook, pressUntilFocused } from './support/keyboard-focus';
-import { newJourneyContext, pictureOnFailure, watchProblems, type JourneyWorld } from './support/journey-kit';
+import { watchProblems } from '../support/page-problems';
+import { newJourneyContext, pictureOnFailure, type JourneyWorld } from './support/journey-kit';
 import { progressSeen, recordProgress, throttleUploads } from './support/upload-progress';
 
 /** Reads "10.0 mm" as 10 (null for a dash). */

@@ -5,7 +5,9 @@ import { RESULTS_DIR } from '../support/browser';
 import { screenshotWholePage } from '../support/whole-page-screenshot';
 import { DEMO_ACCOUNTS, signIn, submitSignIn } from '../support/sign-in';
 import type { Page } from 'playwright-core';
-import { DEMO_AUDIT, choose, newJourneyContext, pictureOnFailure, watchProblems, type JourneyWorld } from './support/journey-kit';
+import { choose } from '../support/material-select';
+import { watchProblems } from '../support/page-problems';
+import { DEMO_AUDIT, newJourneyContext, pictureOnFailure, type JourneyWorld } from './support/journey-kit';
 
 /** Patient codes as the demo practice writes them; a governance workbook must never carry one. */
 const PATIENT_CODE = /HP-\d{4}/;

@@ -1,7 +1,9 @@
 import type { Page } from 'playwright-core';
 import { screenshotWholePage } from '../support/whole-page-screenshot';
 import { DEMO_ACCOUNTS, signIn } from '../support/sign-in';
-import { DEMO_AUDIT, choose, newJourneyContext, pictureOnFailure, squash, watchProblems, type JourneyWorld } from './support/journey-kit';
+import { choose } from '../support/material-select';
+import { watchProblems } from '../support/page-problems';
+import { DEMO_AUDIT, newJourneyContext, pictureOnFailure, squash, type JourneyWorld } from './support/journey-kit';
 
 /** What the results show at one moment: the outcome summary's row and the margin-drift numbers. */
 interface ShownFigures {

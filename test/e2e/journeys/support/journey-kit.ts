@@ -22,28 +22,6 @@ export async function newJourneyContext(world: JourneyWorld, options: Parameters
   return context;
 }
 
-/** Console errors and page errors, other than the expected 401 of "who am I?" before sign-in. */
-export function watchProblems(page: Page): string[] {
-  const problems: string[] = [];
-  page.on('console', (message) => {
-    if (message.type() === 'error' && !/status of 401/.test(message.text())) problems.push(message.text());
-  });
-  page.on('pageerror', (error) => problems.push(error.message));
-  return problems;
-}
-
-/**
- * Opens a Material select from the keyboard and picks an option with the mouse (the floating
- * label covers the select for a pointer, and the option list is an overlay).
- */
-export async function choose(page: Page, label: string, option: string | RegExp): Promise<void> {
-  const list = page.getByRole('listbox', { name: label });
-  await page.getByRole('combobox', { name: label }).press('Enter');
-  await list.waitFor();
-  await list.getByRole('option', { name: option, exact: typeof option === 'string' }).click();
-  await list.waitFor({ state: 'detached' });
-}
-
 /** Saves a picture of the page as it stood when a journey failed, then lets the failure through. */
 export async function pictureOnFailure(page: Page, name: string, error: unknown): Promise<never> {
   await page.screenshot({ path: path.join(RESULTS_DIR, `${name}-failure.png`), fullPage: true }).catch(() => undefined);
