@@ -16,6 +16,7 @@ export * from './schemas/case';
 export * from './schemas/visit';
 export * from './schemas/complication';
 export * from './schemas/photo';
+export * from './schemas/record-id';
 export * from './types/regions';
 export * from './types/standard-metrics';
 export * from './types/audit-dataset';

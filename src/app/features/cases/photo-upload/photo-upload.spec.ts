@@ -4,6 +4,8 @@ import { HttpEventType, provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatFormFieldHarness } from '@angular/material/form-field/testing';
+import { MatInputHarness } from '@angular/material/input/testing';
 import { MatProgressBarHarness } from '@angular/material/progress-bar/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import type { PhotoView } from '@tidemark/shared';
@@ -101,6 +103,32 @@ describe('PhotoUpload', () => {
     await fixture.whenStable();
     expect(element().querySelector('[role="alert"]')?.textContent?.trim()).toBe(`error${message}`);
     expect(uploaded).toEqual([]);
+  });
+
+  it('asks for the month taken as labelled, hinted YYYY-MM text and sends it', async () => {
+    const field = await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'Month taken' }));
+    const month = await loader.getHarness(MatInputHarness.with({ placeholder: 'YYYY-MM' }));
+    expect(await month.getType()).toBe('text');
+    const input = element().querySelector<HTMLInputElement>('input[placeholder="YYYY-MM"]');
+    const label = input ? element().querySelector(`label[for="${input.id}"]`) : null;
+    expect(label?.textContent?.trim()).toBe('Month taken');
+    const hint = element().querySelector(`#${input?.getAttribute('aria-describedby')?.split(' ')[0]}`);
+    expect(hint?.textContent?.trim()).toBe('Month and year the photograph was taken, e.g. 2026-03. Empty means this month.');
+
+    // Typed from the keyboard; the shared isoMonth rule (shared/schemas/clinical-fields.ts) refuses a one-digit month.
+    await month.setValue('2026-3');
+    await month.blur();
+    expect(await field.getTextErrors()).toEqual(['Use the form YYYY-MM.']);
+    await month.setValue('2026-03');
+    expect(await field.getTextErrors()).toEqual([]);
+
+    await pick(new File(['jpeg bytes'], 'lower-left.jpg', { type: 'image/jpeg' }));
+    await (await uploadButton()).click();
+    const request = http.expectOne('/api/cases/12/photos');
+    const body = request.request.body;
+    expect(body instanceof FormData && body.get('monthTaken')).toBe('2026-03');
+    request.flush(STORED, { status: 201, statusText: 'Created' });
+    await fixture.whenStable();
   });
 
   it('refuses a file over 15 MB before sending it', async () => {

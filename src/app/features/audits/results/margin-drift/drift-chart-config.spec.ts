@@ -22,6 +22,14 @@ describe('buildDriftChart', () => {
     expect(config.options?.scales?.['y']?.title?.text).toBe('Mean rebound, mm (patient level)');
   });
 
+  it('names the ungrouped line after the narrowed cohort, and subgroup lines after their groups', () => {
+    const narrowed = buildDriftChart(auditResults(), { ...OPTIONS, cohortLabel: 'Thin (≤ 1 mm) · Wren Adeyemi' }).data.datasets;
+    expect(narrowed[2].label).toBe('Thin (≤ 1 mm) · Wren Adeyemi: mean rebound');
+    expect(narrowed.some((dataset) => dataset.label?.startsWith('All cases'))).toBe(false);
+    const grouped = buildDriftChart(groupedResults(), { ...OPTIONS, cohortLabel: 'Thin (≤ 1 mm)' }).data.datasets;
+    expect(grouped.filter((dataset) => dataset.label?.endsWith('mean rebound')).map((dataset) => dataset.label)).toEqual(['Thin: mean rebound', 'Thick: mean rebound']);
+  });
+
   it('switches to site-level means', () => {
     const config = buildDriftChart(auditResults(), { ...OPTIONS, level: 'site' });
     expect(config.data.datasets[2].data).toEqual([0.3, 0.55, 0.7]);

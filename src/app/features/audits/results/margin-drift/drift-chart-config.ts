@@ -21,6 +21,8 @@ export interface DriftChartOptions {
   /** The interval chosen in the filters, drawn with a larger point. */
   readonly highlightInterval: string | null;
   readonly palette: ChartPalette;
+  /** The ungrouped line's name: what the narrowing leaves (see `cohortLabel`); "All cases" when left out. */
+  readonly cohortLabel?: string;
 }
 
 /** Dash patterns of the stability threshold lines: stable long dashes, relapse short. */
@@ -38,7 +40,7 @@ export function buildDriftChart(results: AuditResults, options: DriftChartOption
   const highlight = results.schedule.findIndex((interval) => interval.key === options.highlightInterval);
   const datasets: ChartDataset<'line', DriftPoint[]>[] = [];
 
-  driftSeries(results).forEach((series, index) => {
+  driftSeries(results, options.cohortLabel).forEach((series, index) => {
     const colour = results.groups.length > 0 ? palette.series[index % palette.series.length] : palette.teal;
     const stats = series.intervals.map((interval) => interval?.rebound[level] ?? null);
     const band = results.groups.length > 0 ? withAlpha(colour, palette.scheme === 'dark' ? 0.16 : 0.12) : palette.tealBand;

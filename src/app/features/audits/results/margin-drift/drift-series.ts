@@ -1,4 +1,5 @@
 import type { AuditResults, IntervalOutcomeSummary, RecallInterval } from '@tidemark/shared';
+import { WHOLE_COHORT_LABEL } from '../cohort-label';
 
 /** Patient level (mean of each patient's sites, the default) or site level. */
 export type DriftLevel = 'patient' | 'site';
@@ -18,9 +19,9 @@ export const ARORA_2013 = {
   citation: 'Arora et al., J Periodontol 2013;84:934–940',
 } as const;
 
-/** Lines to draw: one per subgroup when grouped, else the whole cohort. */
-export function driftSeries(results: AuditResults): DriftSeries[] {
-  const lines = results.groups.length > 0 ? results.groups.map((group) => ({ name: group.label, summary: group.summary })) : [{ name: 'All cases', summary: results.summary }];
+/** Lines to draw: one per subgroup when grouped, else the cohort shown, named `cohortName` (see `cohortLabel`). */
+export function driftSeries(results: AuditResults, cohortName: string = WHOLE_COHORT_LABEL): DriftSeries[] {
+  const lines = results.groups.length > 0 ? results.groups.map((group) => ({ name: group.label, summary: group.summary })) : [{ name: cohortName, summary: results.summary }];
   return lines.map((line) => ({
     name: line.name,
     intervals: results.schedule.map((interval) => line.summary.intervals.find((found) => found.intervalKey === interval.key) ?? null),

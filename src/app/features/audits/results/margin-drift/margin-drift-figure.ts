@@ -9,6 +9,7 @@ import { intervalCountsLine } from '../chart-kit/figure-counts';
 import { ChartLegend } from '../chart-kit/chart-legend';
 import { legendEntries } from '../chart-kit/legend-entries';
 import { ResultsFigure } from '../chart-kit/results-figure';
+import { WHOLE_COHORT_LABEL } from '../cohort-label';
 import { buildDriftChart } from './drift-chart-config';
 import type { DriftLevel } from './drift-series';
 import { buildDriftTable } from './drift-table';
@@ -48,6 +49,8 @@ export class MarginDriftFigure {
   /** The interval chosen in the filters. */
   readonly intervalKey = input.required<string | null>();
   readonly palette = input.required<ChartPalette>();
+  /** The cohort shown, named as the narrowing filters word it (see `cohortLabel`). */
+  readonly cohortLabel = input(WHOLE_COHORT_LABEL);
 
   /** Patient level by default: sites of one patient are not independent (DESIGN.md §3). */
   protected readonly level = signal<DriftLevel>('patient');
@@ -58,7 +61,14 @@ export class MarginDriftFigure {
   protected readonly label = 'Line chart of mean rebound by recall interval. The numbers are in the table under “Show the numbers”.';
 
   protected readonly config = computed(() =>
-    buildDriftChart(this.results(), { level: this.level(), showReference: this.showReference(), showBands: this.showBands(), highlightInterval: this.intervalKey(), palette: this.palette() }),
+    buildDriftChart(this.results(), {
+      level: this.level(),
+      showReference: this.showReference(),
+      showBands: this.showBands(),
+      highlightInterval: this.intervalKey(),
+      palette: this.palette(),
+      cohortLabel: this.cohortLabel(),
+    }),
   );
   protected readonly legend = computed(() => legendEntries(this.config()));
   protected readonly table = computed(() => buildDriftTable(this.results(), this.level()));

@@ -10,6 +10,7 @@ import { AuthSession } from '../../../../core/auth/auth-session';
 import { ColorScheme } from '../../../../core/theme/color-scheme';
 import { ClinicalCaution } from '../../../../shared/clinical-caution/clinical-caution';
 import { chartPalette } from '../chart-kit/chart-palette';
+import { cohortLabel } from '../cohort-label';
 import { countsLine } from '../chart-kit/result-format';
 import { ExaminerAgreement } from '../examiner-agreement/examiner-agreement';
 import { ResultsApi } from '../results-api';
@@ -116,6 +117,8 @@ export class ResultsBoard {
   protected readonly calibration = loadOnChange(this.scopeKey, (key) => this.api.calibration(key.auditId, key));
 
   protected readonly palette = computed(() => chartPalette(this.scheme.isDark()));
+  /** The cohort the charts show, in the narrowing filters' wording ("All cases" when not narrowed). */
+  protected readonly cohortLabel = computed(() => cohortLabel(this.query().phenotype, this.operatorId(), this.operatorChoices()));
   protected readonly isBusy = computed(() => [this.results(), this.funnel(), this.trend(), this.survival(), this.calibration()].some((loaded) => loaded.status === 'loading'));
   protected readonly cohortLine = computed(() => {
     const results = this.results().value;

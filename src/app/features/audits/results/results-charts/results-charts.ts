@@ -1,6 +1,7 @@
 import { ChangeDetectionStrategy, Component, input, output } from '@angular/core';
 import type { AuditResults, FunnelResult, SurvivalResult, TrendResult } from '@tidemark/shared';
 import type { ChartPalette } from '../chart-kit/chart-palette';
+import { WHOLE_COHORT_LABEL } from '../cohort-label';
 import { MarginDriftFigure } from '../margin-drift/margin-drift-figure';
 import { MonthlyControlFigure } from '../monthly-control/monthly-control-figure';
 import { OperatorFunnelFigure } from '../operator-funnel/operator-funnel-figure';
@@ -39,6 +40,8 @@ export class ResultsCharts {
   /** The interval chosen in the filters, already checked against the schedule. */
   readonly intervalKey = input.required<string | null>();
   readonly palette = input.required<ChartPalette>();
+  /** The cohort shown, named as the narrowing filters word it (see `cohortLabel`). */
+  readonly cohortLabel = input(WHOLE_COHORT_LABEL);
   /** Asks the board to load what failed again. */
   readonly retry = output<void>();
 }
