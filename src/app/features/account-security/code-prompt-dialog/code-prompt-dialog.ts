@@ -1,15 +1,14 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
-import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
+import { ChangeDetectionStrategy, Component, DestroyRef, inject } from '@angular/core';
+import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { oneTimeCodeSchema, type OneTimeCodeRequest } from '@tidemark/shared';
+import type { OneTimeCodeRequest } from '@tidemark/shared';
 import type { Observable } from 'rxjs';
-import { SERVER_ERROR, fieldMessage, zodValidator } from '../../../shared/forms/zod-validator';
-import { codeFailure } from '../code-failure';
+import { fieldMessage } from '../../../shared/forms/zod-validator';
+import { OneTimeCodeSubmission } from '../one-time-code-submission';
 
 /** What the dialog asks for and what it does with the code. */
 export interface CodePromptData<T> {
@@ -19,11 +18,6 @@ export interface CodePromptData<T> {
   readonly actionLabel: string;
   /** The call to make with the code; the dialog closes with its answer. */
   readonly submit: (request: OneTimeCodeRequest) => Observable<T>;
-}
-
-/** The dialog's one control. */
-interface CodePromptForm {
-  code: FormControl<string>;
 }
 
 /**
@@ -91,40 +85,14 @@ interface CodePromptForm {
 export class CodePromptDialog<T> {
   protected readonly data = inject<CodePromptData<T>>(MAT_DIALOG_DATA);
   private readonly dialogRef = inject<MatDialogRef<CodePromptDialog<T>, T>>(MatDialogRef);
-  private readonly destroyRef = inject(DestroyRef);
 
-  protected readonly form = new FormGroup<CodePromptForm>({
-    code: new FormControl('', { nonNullable: true, validators: zodValidator(oneTimeCodeSchema) }),
-  });
-  protected readonly isSubmitting = signal(false);
-  protected readonly failure = signal<string | null>(null);
+  private readonly submission = new OneTimeCodeSubmission(inject(DestroyRef));
+  protected readonly form = this.submission.form;
+  protected readonly isSubmitting = this.submission.isSubmitting;
+  protected readonly failure = this.submission.failure;
   protected readonly fieldMessage = fieldMessage;
 
   protected submit(): void {
-    if (this.isSubmitting()) {
-      return;
-    }
-    this.failure.set(null);
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      return;
-    }
-    this.isSubmitting.set(true);
-    this.data
-      .submit(this.form.getRawValue())
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe({
-        next: (answer) => this.dialogRef.close(answer),
-        error: (error: unknown) => {
-          this.isSubmitting.set(false);
-          const failure = codeFailure(error);
-          if (failure.field) {
-            const control = this.form.controls.code;
-            control.setErrors({ ...control.errors, [SERVER_ERROR]: failure.field });
-            control.markAsTouched();
-          }
-          this.failure.set(failure.general);
-        },
-      });
+    this.submission.submit(this.data.submit, (answer) => this.dialogRef.close(answer));
   }
 }

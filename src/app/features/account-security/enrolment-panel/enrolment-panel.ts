@@ -1,19 +1,13 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, output, signal } from '@angular/core';
-import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, output } from '@angular/core';
+import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { oneTimeCodeSchema, type EnrolmentConfirmation, type SecondFactorEnrolment } from '@tidemark/shared';
-import { SERVER_ERROR, fieldMessage, zodValidator } from '../../../shared/forms/zod-validator';
+import type { EnrolmentConfirmation, SecondFactorEnrolment } from '@tidemark/shared';
+import { fieldMessage } from '../../../shared/forms/zod-validator';
 import { AccountSecurityApi } from '../account-security-api';
-import { codeFailure } from '../code-failure';
-
-/** The confirmation form's one control. */
-interface ConfirmForm {
-  code: FormControl<string>;
-}
+import { OneTimeCodeSubmission } from '../one-time-code-submission';
 
 /**
  * Setting up one-time codes: the QR code to scan, the same key to type by hand, and the
@@ -28,7 +22,6 @@ interface ConfirmForm {
 })
 export class EnrolmentPanel {
   private readonly api = inject(AccountSecurityApi);
-  private readonly destroyRef = inject(DestroyRef);
 
   /** The secret the server handed out. */
   readonly enrolment = input.required<SecondFactorEnrolment>();
@@ -40,39 +33,14 @@ export class EnrolmentPanel {
   /** The key in groups of four, easier to copy by hand. */
   protected readonly groupedSecret = computed(() => this.enrolment().secret.match(/.{1,4}/g)?.join(' ') ?? this.enrolment().secret);
 
-  protected readonly form = new FormGroup<ConfirmForm>({
-    code: new FormControl('', { nonNullable: true, validators: zodValidator(oneTimeCodeSchema) }),
-  });
-  protected readonly isSubmitting = signal(false);
-  protected readonly failure = signal<string | null>(null);
+  private readonly submission = new OneTimeCodeSubmission(inject(DestroyRef));
+  protected readonly form = this.submission.form;
+  protected readonly isSubmitting = this.submission.isSubmitting;
+  protected readonly failure = this.submission.failure;
   protected readonly fieldMessage = fieldMessage;
 
   protected confirm(): void {
-    if (this.isSubmitting()) {
-      return;
-    }
-    this.failure.set(null);
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      return;
-    }
-    this.isSubmitting.set(true);
-    this.api
-      .confirmEnrolment(this.form.getRawValue())
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe({
-        next: (confirmation) => this.confirmed.emit(confirmation),
-        error: (error: unknown) => {
-          this.isSubmitting.set(false);
-          const failure = codeFailure(error);
-          if (failure.field) {
-            const control = this.form.controls.code;
-            control.setErrors({ ...control.errors, [SERVER_ERROR]: failure.field });
-            control.markAsTouched();
-          }
-          this.failure.set(failure.general);
-        },
-      });
+    this.submission.submit((request) => this.api.confirmEnrolment(request), (confirmation) => this.confirmed.emit(confirmation));
   }
 
   protected cancel(): void {
