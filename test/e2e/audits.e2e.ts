@@ -147,6 +147,7 @@ describe('audits journey in Chromium', () => {
     await page.getByRole('tab', { name: 'Cycles & actions' }).click();
     await page.waitForURL(/area=cycles/);
     const cycles = page.locator('tm-cycles-panel li.cycle');
+    await cycles.nth(1).waitFor();
     await expect(cycles.count()).resolves.toBe(2);
     // The reported first cycle moves only on to "Closed"; the gathering re-audit only to weighing.
     await expect(cycles.nth(0).getByRole('group').getByRole('button', { name: 'Close the cycle' }).count()).resolves.toBe(1);

@@ -150,12 +150,19 @@ describe('recall entry journey in Chromium', () => {
     await page.getByLabel('Hygiene phase completed').check();
     await page.getByRole('button', { name: /Next: teeth/ }).click();
 
-    await page.getByRole('button', { name: '21, central incisor' }).click();
-    await expect(page.getByRole('button', { name: '21, central incisor' }).getAttribute('aria-pressed')).resolves.toBe('true');
+    const tooth21 = page.getByRole('button', { name: '21, central incisor' });
+    const pressed21 = page.locator('[aria-label="21, central incisor"][aria-pressed="true"]');
+    await tooth21.click();
+    // Change detection runs after the click resolves, so wait for the pressed state rather than read it once.
+    // A click that lands while the stepper is still sliding in can be lost; after two quiet seconds, one more is safe.
+    if (!(await pressed21.waitFor({ timeout: 2_000 }).then(() => true, () => false))) await tooth21.click();
+    await pressed21.waitFor({ timeout: 5_000 });
+    await expect(tooth21.getAttribute('aria-pressed')).resolves.toBe('true');
     await page.getByRole('group', { name: 'Sites on tooth 21' }).getByText('Mesial papilla').click();
     await page.getByRole('button', { name: /Next: baseline/ }).click();
 
     const cards = page.locator('tm-site-baseline-card');
+    await cards.nth(1).waitFor();
     await expect(cards.count()).resolves.toBe(2);
     for (const [index, values] of [
       ['9', '3', '3', '1.5'],
