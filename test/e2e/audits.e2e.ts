@@ -1,7 +1,7 @@
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { launchBrowser, screenshotPath } from './support/browser';
 import { startServer, type RunningServer } from './support/server';
-import { chooseWithoutWaiting } from './support/material-select';
+import { choose } from './support/material-select';
 import { watchProblems } from './support/page-problems';
 import { signIn } from './support/sign-in';
 
@@ -117,8 +117,8 @@ describe('audits journey in Chromium', () => {
       await page.getByRole('button', { name: 'Add standard' }).click();
       const dialog = page.getByRole('dialog');
       await dialog.getByLabel('Criterion').fill(standard.criterion);
-      await chooseWithoutWaiting(page, 'Measure', standard.measure);
-      await chooseWithoutWaiting(page, 'Recall interval', '6 months');
+      await choose(page, 'Measure', standard.measure);
+      await choose(page, 'Recall interval', '6 months');
       await dialog.getByLabel('Target').fill(standard.target);
       await dialog.getByLabel('Evidence source').fill('Practice standard');
       await dialog.getByRole('button', { name: 'Add standard' }).click();

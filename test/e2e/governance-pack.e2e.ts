@@ -3,7 +3,7 @@ import ExcelJS from 'exceljs';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { RESULTS_DIR, launchBrowser } from './support/browser';
 import { startServer, type RunningServer } from './support/server';
-import { chooseWithoutWaiting } from './support/material-select';
+import { choose } from './support/material-select';
 import { watchProblems } from './support/page-problems';
 import { signIn } from './support/sign-in';
 import { screenshotWholePage } from './support/whole-page-screenshot';
@@ -20,8 +20,8 @@ const PATIENT_WAIT_MS = 60_000;
 async function openReportsOnFrozenCycle(page: Page): Promise<void> {
   await page.getByRole('navigation', { name: 'Main navigation' }).getByRole('link', { name: /Reports/ }).click();
   await page.getByRole('heading', { name: 'Reports', level: 1 }).waitFor();
-  await chooseWithoutWaiting(page, 'Audit', DEMO_AUDIT);
-  await chooseWithoutWaiting(page, 'Scope', /^Cycle 1 .*Reported, frozen$/);
+  await choose(page, 'Audit', DEMO_AUDIT);
+  await choose(page, 'Scope', /^Cycle 1 .*Reported, frozen$/);
   await page.getByText('Frozen when the cycle was reported').waitFor();
 }
 

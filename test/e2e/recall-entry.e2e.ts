@@ -2,7 +2,7 @@ import type { Browser, BrowserContext, Locator, Page } from 'playwright-core';
 import type { CaseDetail, RecallDueList } from '@tidemark/shared';
 import { launchBrowser } from './support/browser';
 import { startServer, type RunningServer } from './support/server';
-import { chooseWithoutWaiting } from './support/material-select';
+import { choose } from './support/material-select';
 import { watchProblems } from './support/page-problems';
 import { DEMO_ACCOUNTS, signIn } from './support/sign-in';
 import { screenshotWholePage } from './support/whole-page-screenshot';
@@ -136,17 +136,17 @@ describe('recall entry journey in Chromium', () => {
     const code = `E2E-${Date.now().toString(36).toUpperCase().slice(-6)}`;
     await page.getByLabel('Patient code').fill(code);
     await page.getByLabel('Birth year').fill('1981');
-    await chooseWithoutWaiting(page, 'Sex', 'Female');
-    await chooseWithoutWaiting(page, 'Smoking', 'Current smoker');
+    await choose(page, 'Sex', 'Female');
+    await choose(page, 'Smoking', 'Current smoker');
     await page.getByLabel('Cigarettes a day').fill('5');
-    await chooseWithoutWaiting(page, 'Diabetes', 'No diabetes');
-    await chooseWithoutWaiting(page, 'Gingival phenotype', /Thin/);
-    await chooseWithoutWaiting(page, 'Phenotype assessed by', 'Probe visible through the margin');
+    await choose(page, 'Diabetes', 'No diabetes');
+    await choose(page, 'Gingival phenotype', /Thin/);
+    await choose(page, 'Phenotype assessed by', 'Probe visible through the margin');
     await page.getByRole('button', { name: /Next: surgery plan/ }).click();
 
-    await chooseWithoutWaiting(page, 'Procedure', 'Apically positioned flap');
-    await chooseWithoutWaiting(page, 'Indication', /caries/);
-    await chooseWithoutWaiting(page, 'Instrument', 'Scalpel');
+    await choose(page, 'Procedure', 'Apically positioned flap');
+    await choose(page, 'Indication', /caries/);
+    await choose(page, 'Instrument', 'Scalpel');
     await page.getByLabel('Hygiene phase completed').check();
     await page.getByRole('button', { name: /Next: teeth/ }).click();
 
