@@ -2,14 +2,15 @@ import { LIGHT_CHART_PALETTE } from '../chart-kit/chart-palette';
 import { trendResult } from '../testing/results-fixtures';
 import { buildCusumTable, buildPChartTable, buildXmrTable } from './control-tables';
 import { CUSUM_POINT_STYLES, SIGNAL_DATASET, buildCusumChart } from './cusum-chart-config';
-import { monthLabel } from './month-label';
 import { CONTROL_LIMIT_DASH, INSIDE_POINT_STYLE, OUTSIDE_DATASET, OUTSIDE_POINT_STYLE, buildRelapsePChart } from './p-chart-config';
 import { buildReboundXmrChart } from './xmr-chart-config';
 
 const PALETTE = LIGHT_CHART_PALETTE;
+/** The product's own locale, as the app falls back to it (core/locale/user-locale.ts). */
+const LOCALE = 'en-GB';
 
 describe('buildRelapsePChart', () => {
-  const config = buildRelapsePChart(trendResult(), '6 months', PALETTE);
+  const config = buildRelapsePChart(trendResult(), '6 months', PALETTE, LOCALE);
   const [share, outside, centre, upper, lower] = config.data.datasets;
 
   it('plots the monthly relapse share in percent against months of surgery', () => {
@@ -42,7 +43,7 @@ describe('buildRelapsePChart', () => {
 
 describe('buildReboundXmrChart', () => {
   it('plots monthly mean rebound with its mean and constant process limits, outside months marked', () => {
-    const config = buildReboundXmrChart(trendResult(), '6 months', PALETTE);
+    const config = buildReboundXmrChart(trendResult(), '6 months', PALETTE, LOCALE);
     const [values, outside, mean, upper, lower] = config.data.datasets;
     expect(values.data).toEqual([0.5, 1.3, 0.6]);
     expect(mean.label).toBe('Mean 0.60 mm');
@@ -80,13 +81,31 @@ describe('buildCusumChart', () => {
 
 describe('control tables', () => {
   it('tabulate each view with the same numbers as its chart', () => {
-    expect(buildPChartTable(trendResult(), '6 months').rows[1]).toEqual(['Feb 2030', '12', '20', '60.0%', '0.0 to 47.0', 'Yes']);
-    expect(buildXmrTable(trendResult(), '6 months').caption).toContain('natural process limits 0.10 to 1.10 mm');
+    expect(buildPChartTable(trendResult(), '6 months', LOCALE).rows[1]).toEqual(['Feb 2030', '12', '20', '60.0%', '0.0 to 47.0', 'Yes']);
+    expect(buildXmrTable(trendResult(), '6 months', LOCALE).caption).toContain('natural process limits 0.10 to 1.10 mm');
     expect(buildCusumTable(trendResult()).rows[2]).toEqual(['3', '2030-01-15', 'Yes', '2.10', 'Signal']);
   });
+});
 
-  it('reads months in words', () => {
-    expect(monthLabel('2025-12')).toBe('Dec 2025');
-    expect(monthLabel('2025-13')).toBe('2025-13');
+describe('month names in the person’s locale', () => {
+  // The expected names come from Intl.DateTimeFormat itself (ECMA-402, CLDR data through the ICU
+  // the tests run on), asked for a short month and the year of each fixture month, shown in UTC.
+  const monthsIn = (locale: string) =>
+    [0, 1, 2].map((month) => new Intl.DateTimeFormat(locale, { month: 'short', year: 'numeric', timeZone: 'UTC' }).format(new Date(Date.UTC(2030, month, 1))));
+
+  it('names months on both control charts’ axes and in their tables in German for de-DE', () => {
+    const german = monthsIn('de-DE');
+    // The German names differ from the English ones, so month names fixed in English fail the checks below.
+    expect(german).not.toEqual(monthsIn('en-GB'));
+    expect(german[2]).toContain('März');
+    expect(buildRelapsePChart(trendResult(), '6 months', PALETTE, 'de-DE').data.labels).toEqual(german);
+    expect(buildReboundXmrChart(trendResult(), '6 months', PALETTE, 'de-DE').data.labels).toEqual(german);
+    expect(buildPChartTable(trendResult(), '6 months', 'de-DE').rows.map((row) => row[0])).toEqual(german);
+    expect(buildXmrTable(trendResult(), '6 months', 'de-DE').rows.map((row) => row[0])).toEqual(german);
+  });
+
+  it('keeps British English for the product’s own locale', () => {
+    expect(buildPChartTable(trendResult(), '6 months', LOCALE).rows.map((row) => row[0])).toEqual(monthsIn('en-GB'));
+    expect(monthsIn('en-GB')).toEqual(['Jan 2030', 'Feb 2030', 'Mar 2030']);
   });
 });

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, LOCALE_ID, computed, inject, input, signal } from '@angular/core';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import type { AuditResults, TrendResult } from '@tidemark/shared';
 import { BaseChartDirective } from 'ng2-charts';
@@ -47,6 +47,9 @@ export class MonthlyControlFigure {
   readonly results = input.required<AuditResults>();
   readonly palette = input.required<ChartPalette>();
 
+  /** Months on the axis and in the table are named the way the person's locale names them, as `localDate` does. */
+  private readonly locale = inject(LOCALE_ID);
+
   protected readonly view = signal<ControlView>('relapse');
   private readonly intervalLabel = computed(() => intervalLabelOf(this.results(), this.trend().intervalKey));
   protected readonly note = computed(() => NOTES[this.view()]);
@@ -56,9 +59,9 @@ export class MonthlyControlFigure {
     const trend = this.trend();
     switch (this.view()) {
       case 'relapse':
-        return buildRelapsePChart(trend, this.intervalLabel(), this.palette());
+        return buildRelapsePChart(trend, this.intervalLabel(), this.palette(), this.locale);
       case 'rebound':
-        return buildReboundXmrChart(trend, this.intervalLabel(), this.palette());
+        return buildReboundXmrChart(trend, this.intervalLabel(), this.palette(), this.locale);
       case 'cusum':
         return buildCusumChart(trend, this.palette());
     }
@@ -68,9 +71,9 @@ export class MonthlyControlFigure {
   protected readonly table = computed(() => {
     switch (this.view()) {
       case 'relapse':
-        return buildPChartTable(this.trend(), this.intervalLabel());
+        return buildPChartTable(this.trend(), this.intervalLabel(), this.locale);
       case 'rebound':
-        return buildXmrTable(this.trend(), this.intervalLabel());
+        return buildXmrTable(this.trend(), this.intervalLabel(), this.locale);
       case 'cusum':
         return buildCusumTable(this.trend());
     }

@@ -4,7 +4,7 @@ import type { PointLabel } from '../chart-kit/chart-extensions';
 import { HIDDEN_LEGEND, scaleLook, tooltipLook } from '../chart-kit/chart-look';
 import type { ChartPalette } from '../chart-kit/chart-palette';
 import { formatShare } from '../chart-kit/result-format';
-import { monthLabel } from './month-label';
+import { formatLocalDate } from '../../../../shared/dates/local-date';
 
 /** Control charts' configuration type: values per month (or per case) on a category axis. */
 export type ControlChartConfiguration = ChartConfiguration<'line', (number | null)[], string>;
@@ -55,9 +55,9 @@ export function outsideLabels(isOutside: readonly boolean[], palette: ChartPalet
 /**
  * "Monthly relapse control", p-chart view: share of relapse sites per month of surgery with
  * per-month 3-sigma limits (stepped, dashed) and the centre line; months outside their
- * limits get a diamond marker and a label.
+ * limits get a diamond marker and a label. Months are named in `locale` (Angular's `LOCALE_ID`).
  */
-export function buildRelapsePChart(trend: TrendResult, intervalLabel: string, palette: ChartPalette): ControlChartConfiguration {
+export function buildRelapsePChart(trend: TrendResult, intervalLabel: string, palette: ChartPalette, locale: string): ControlChartConfiguration {
   const points = trend.relapse.points;
   const isOutside = points.map((point) => point.isOutside);
   const shares = points.map((point) => point.p * 100);
@@ -71,7 +71,7 @@ export function buildRelapsePChart(trend: TrendResult, intervalLabel: string, pa
   ];
   return {
     type: 'line',
-    data: { labels: points.map((point) => monthLabel(point.month)), datasets },
+    data: { labels: points.map((point) => formatLocalDate(point.month, 'month', locale)), datasets },
     options: {
       scales: {
         x: scaleLook(palette, 'Month of surgery'),

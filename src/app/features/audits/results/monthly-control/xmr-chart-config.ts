@@ -3,14 +3,15 @@ import type { TrendResult } from '@tidemark/shared';
 import { HIDDEN_LEGEND, scaleLook, tooltipLook } from '../chart-kit/chart-look';
 import type { ChartPalette } from '../chart-kit/chart-palette';
 import { formatMm } from '../chart-kit/result-format';
-import { monthLabel } from './month-label';
+import { formatLocalDate } from '../../../../shared/dates/local-date';
 import { CONTROL_LIMIT_DASH, outsideLabels, outsideMarkers, referenceLine, seriesLine, type ControlChartConfiguration } from './p-chart-config';
 
 /**
  * "Monthly relapse control", XmR view: mean site rebound per month of surgery as an
  * individuals chart with its mean and natural process limits; outside months marked.
+ * Months are named in `locale` (Angular's `LOCALE_ID`), as the app's `localDate` pipe names them.
  */
-export function buildReboundXmrChart(trend: TrendResult, intervalLabel: string, palette: ChartPalette): ControlChartConfiguration {
+export function buildReboundXmrChart(trend: TrendResult, intervalLabel: string, palette: ChartPalette, locale: string): ControlChartConfiguration {
   const { points, mean, lcl, ucl } = trend.rebound;
   const isOutside = points.map((point) => point.isOutside);
   const values = points.map((point) => point.value);
@@ -24,7 +25,7 @@ export function buildReboundXmrChart(trend: TrendResult, intervalLabel: string, 
   ];
   return {
     type: 'line',
-    data: { labels: points.map((point) => monthLabel(point.month)), datasets },
+    data: { labels: points.map((point) => formatLocalDate(point.month, 'month', locale)), datasets },
     options: {
       scales: {
         x: scaleLook(palette, 'Month of surgery'),

@@ -6,11 +6,12 @@ import { Component } from '@angular/core';
 import { DeferBlockBehavior, TestBed } from '@angular/core/testing';
 import { MatChipOptionHarness } from '@angular/material/chips/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
+import { MatTableHarness } from '@angular/material/table/testing';
 import { Router, provideRouter } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
 import type { CycleView, OperatorView, Role } from '@tidemark/shared';
 import { personWithRole, provideStubAuthSession } from '../../../../core/auth/testing/stub-auth-session';
-import { auditResults, calibrationResult, funnelResult, survivalResult, trendResult } from '../testing/results-fixtures';
+import { auditResults, calibrationResult, funnelResult, groupedResults, survivalResult, trendResult } from '../testing/results-fixtures';
 import { ResultsBoard } from './results-board';
 
 const CYCLES: CycleView[] = [
@@ -92,7 +93,8 @@ describe('ResultsBoard', () => {
     const view = request.request.url.split('/').at(-1);
     if (view === 'results') {
       const frozenAt = cycleId === 4 ? CYCLES[0].frozenAt : null;
-      request.flush(auditResults({ cycleId, frozenAt }));
+      const grouping = params.get('groupBy') === 'phenotype' ? groupedResults() : auditResults();
+      request.flush({ ...grouping, cycleId, frozenAt });
     } else if (view === 'funnel') request.flush(funnelResult());
     else if (view === 'trend') request.flush(trendResult());
     else if (view === 'survival') request.flush(survivalResult());
@@ -120,6 +122,13 @@ describe('ResultsBoard', () => {
     const chip = await loader.getHarness(MatChipOptionHarness.with({ text }));
     await chip.select();
     return answerAll();
+  }
+
+  /** The outcome summary's row names (its group column), top to bottom; empty when the column is not shown. */
+  async function summaryRowNames(): Promise<string[]> {
+    const table = await loader.getHarness(MatTableHarness.with({ ancestor: 'tm-results-summary-table' }));
+    const rows = await table.getCellTextByColumnName();
+    return rows['group']?.text ?? [];
   }
 
   function pageText(): string {
@@ -205,6 +214,23 @@ describe('ResultsBoard', () => {
     const operator = await loader.getHarness(MatSelectHarness.with({ selector: '.narrow-field:last-of-type mat-select' }));
     expect(await operator.getValueText()).toBe('Dr Ida Quill');
     expect(pageText()).toContain('The operator funnel still compares every operator');
+  });
+
+  it('names the summary table’s cohort row after the narrowing, as the drift legend does', async () => {
+    // Words are the filters' own: PHENOTYPE_LABELS (shared/types/clinical-terms.ts) and the operator's display name.
+    await open('/audits/1?area=results&phenotype=thin&operator=7', 'partner');
+    expect(await summaryRowNames()).toEqual(['Thin (≤ 1 mm) · Dr Ida Quill']);
+    expect(pageText()).not.toContain('All cases');
+  });
+
+  it('calls the summary table’s cohort row “All cases” when nothing narrows it', async () => {
+    await open('/audits/1?area=results&groupBy=phenotype', 'partner');
+    // Group rows carry the fixture's group labels (groupedResults in testing/results-fixtures.ts).
+    expect(await summaryRowNames()).toEqual(['All cases', 'Thin', 'Thick']);
+    // Neither grouped nor narrowed: one row, which needs no name.
+    await router.navigateByUrl('/audits/1?area=results');
+    await answerAll();
+    expect(await summaryRowNames()).toEqual([]);
   });
 
   it('writes a chosen phenotype and operator to the address and asks again', async () => {

@@ -117,7 +117,7 @@ export class ResultsBoard {
   protected readonly calibration = loadOnChange(this.scopeKey, (key) => this.api.calibration(key.auditId, key));
 
   protected readonly palette = computed(() => chartPalette(this.scheme.isDark()));
-  /** The cohort the charts show, in the narrowing filters' wording ("All cases" when not narrowed). */
+  /** The cohort the charts and the summary table show, in the narrowing filters' wording ("All cases" when not narrowed). */
   protected readonly cohortLabel = computed(() => cohortLabel(this.query().phenotype, this.operatorId(), this.operatorChoices()));
   protected readonly isBusy = computed(() => [this.results(), this.funnel(), this.trend(), this.survival(), this.calibration()].some((loaded) => loaded.status === 'loading'));
   protected readonly cohortLine = computed(() => {

@@ -5,6 +5,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatTableModule } from '@angular/material/table';
 import type { AuditResults } from '@tidemark/shared';
+import { WHOLE_COHORT_LABEL } from '../cohort-label';
 import { summaryRows } from './summary-rows';
 
 /** Intervals shown in the table: the one chosen in the filters, or all. */
@@ -22,13 +23,18 @@ export class ResultsSummaryTable {
   readonly results = input.required<AuditResults>();
   /** The interval chosen in the filters. */
   readonly intervalKey = input.required<string | null>();
+  /** The cohort shown, named as the narrowing filters word it (see `cohortLabel`): heads the first row. */
+  readonly cohortLabel = input(WHOLE_COHORT_LABEL);
 
   protected readonly scope = signal<IntervalScope>('chosen');
   protected readonly text = signal('');
-  protected readonly rows = computed(() => summaryRows(this.results(), { intervalKey: this.scope() === 'all' ? null : this.intervalKey(), text: this.text() }));
-  protected readonly isGrouped = computed(() => this.results().groups.length > 0);
+  protected readonly rows = computed(() =>
+    summaryRows(this.results(), { intervalKey: this.scope() === 'all' ? null : this.intervalKey(), text: this.text(), cohortLabel: this.cohortLabel() }),
+  );
+  /** The group column names each row: needed when grouped, and when narrowed so the cohort row says what it covers. */
+  protected readonly isGroupNamed = computed(() => this.results().groups.length > 0 || this.cohortLabel() !== WHOLE_COHORT_LABEL);
   protected readonly columns = computed(() => [
-    ...(this.isGrouped() ? ['group'] : []),
+    ...(this.isGroupNamed() ? ['group'] : []),
     // With one interval shown, the interval is said once above the table instead of on every row.
     ...(this.scope() === 'all' ? ['interval'] : []),
     'n',

@@ -1,5 +1,6 @@
 import { auditResults, groupedResults } from '../testing/results-fixtures';
-import { WHOLE_COHORT, summaryRows } from './summary-rows';
+import { WHOLE_COHORT_LABEL, cohortLabel } from '../cohort-label';
+import { summaryRows } from './summary-rows';
 
 describe('summaryRows', () => {
   it('gives the whole cohort at the chosen interval, worded with CIs', () => {
@@ -7,7 +8,7 @@ describe('summaryRows', () => {
     expect(rows).toEqual([
       {
         id: 'All cases|6m',
-        group: WHOLE_COHORT,
+        group: WHOLE_COHORT_LABEL,
         interval: '6 months',
         nSites: 40,
         nPatients: 10,
@@ -22,13 +23,30 @@ describe('summaryRows', () => {
   });
 
   it('adds one row per group when grouped, and every interval when asked', () => {
-    expect(summaryRows(groupedResults(), { intervalKey: '6m', text: '' }).map((row) => row.group)).toEqual([WHOLE_COHORT, 'Thin', 'Thick']);
+    expect(summaryRows(groupedResults(), { intervalKey: '6m', text: '' }).map((row) => row.group)).toEqual([WHOLE_COHORT_LABEL, 'Thin', 'Thick']);
     expect(summaryRows(groupedResults(), { intervalKey: null, text: '' })).toHaveLength(9);
   });
 
   it('keeps only rows whose group or interval contains the typed words', () => {
     const rows = summaryRows(groupedResults(), { intervalKey: null, text: ' THICK 12 ' });
     expect(rows.map((row) => row.id)).toEqual(['Thick|12m']);
+  });
+
+  it('names the first row after the narrowed cohort, the way the drift legend names it, and keeps group rows as they are', () => {
+    // Label words are the results filters' own (PHENOTYPE_LABELS in shared/types/clinical-terms.ts, operator choice labels).
+    const narrowed = cohortLabel('thin', 5, [{ id: 5, label: 'Wren Adeyemi' }]);
+    expect(narrowed).toBe('Thin (≤ 1 mm) · Wren Adeyemi');
+    const rows = summaryRows(groupedResults(), { intervalKey: '6m', text: '', cohortLabel: narrowed });
+    expect(rows.map((row) => row.group)).toEqual(['Thin (≤ 1 mm) · Wren Adeyemi', 'Thin', 'Thick']);
+    expect(rows[0].id).toBe('Thin (≤ 1 mm) · Wren Adeyemi|6m');
+    expect(rows.some((row) => row.group === WHOLE_COHORT_LABEL)).toBe(false);
+    // The typed words find the narrowed row by its new name.
+    expect(summaryRows(auditResults(), { intervalKey: null, text: 'adeyemi', cohortLabel: narrowed })).toHaveLength(3);
+  });
+
+  it('calls the first row "All cases" when nothing narrows the results', () => {
+    expect(summaryRows(auditResults(), { intervalKey: '6m', text: '', cohortLabel: cohortLabel(null, null, []) })[0].group).toBe('All cases');
+    expect(summaryRows(auditResults(), { intervalKey: '6m', text: '' })[0].group).toBe('All cases');
   });
 
   it('shows dashes for an interval without data', () => {

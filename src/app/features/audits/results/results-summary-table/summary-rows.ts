@@ -1,5 +1,6 @@
 import type { AuditResults, DescriptiveStatistics, IntervalOutcomeSummary, ProportionEstimate } from '@tidemark/shared';
 import { NOT_AVAILABLE, formatInterval, formatNumber, formatShare } from '../chart-kit/result-format';
+import { WHOLE_COHORT_LABEL } from '../cohort-label';
 
 /** An estimate and its 95% interval, worded apart so the table can set the interval on its own line. */
 export interface WordedEstimate {
@@ -28,17 +29,17 @@ export interface SummaryFilter {
   readonly intervalKey: string | null;
   /** Words a row's group or interval must contain (case-insensitive); empty keeps all. */
   readonly text: string;
+  /** The first row's name: the cohort the results show (see `cohortLabel`); "All cases" when left out. */
+  readonly cohortLabel?: string;
 }
 
-/** The whole cohort's row label. */
-export const WHOLE_COHORT = 'All cases';
-
 /**
- * Rows of the summary table: the whole cohort, then one per group when grouped, at the
- * chosen interval (or every interval), filtered by the typed words.
+ * Rows of the summary table: the cohort shown (named after the narrowing, so a narrowed table
+ * never claims "All cases"), then one per group when grouped, at the chosen interval (or every
+ * interval), filtered by the typed words.
  */
 export function summaryRows(results: AuditResults, filter: SummaryFilter): SummaryRow[] {
-  const lines = [{ group: WHOLE_COHORT, summary: results.summary }, ...results.groups.map((group) => ({ group: group.label, summary: group.summary }))];
+  const lines = [{ group: filter.cohortLabel ?? WHOLE_COHORT_LABEL, summary: results.summary }, ...results.groups.map((group) => ({ group: group.label, summary: group.summary }))];
   const intervals = results.schedule.filter((interval) => filter.intervalKey === null || interval.key === filter.intervalKey);
   const words = filter.text.trim().toLowerCase();
   return lines
