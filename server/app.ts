@@ -21,6 +21,7 @@ import { governanceRedaction } from './middleware/governance-redaction';
 import { authRoutes, DEFAULT_LOGIN_LIMITS, SESSION_COOKIE, type LoginLimits } from './routes/auth.routes';
 import { healthRoutes } from './routes/health.routes';
 import { userRoutes } from './routes/users.routes';
+import { passwordRoutes, type PasswordChangeLimits } from './routes/password.routes';
 import { caseRoutes } from './routes/cases.routes';
 import { complicationRoutes, siteRoutes, visitRoutes } from './routes/clinical-edits.routes';
 import { patientRoutes } from './routes/patients.routes';
@@ -79,6 +80,8 @@ export interface AppOptions {
   /** Password hashing cost; tests lower it, production keeps OWASP's. */
   scryptCost?: ScryptCost;
   loginLimits?: LoginLimits;
+  /** Refused own-password changes allowed per member (default 5 per 15 minutes). */
+  passwordChangeLimits?: PasswordChangeLimits;
   /** pino level; 'silent' in tests. */
   logLevel?: string;
   /** Express `trust proxy` when served behind a TLS-terminating proxy. */
@@ -243,6 +246,7 @@ export function createApp(options: AppOptions): TidemarkApp {
   // Before every resource: a session waiting for its code, or one that must set codes up first, reaches nothing else.
   api.use(secondFactorGate(secondFactors));
   api.use('/auth/second-factor', secondFactorRoutes(secondFactors, csrf, options.loginLimits ?? DEFAULT_LOGIN_LIMITS));
+  api.use('/auth/password', passwordRoutes(users, services.mail, options.passwordChangeLimits));
   api.use('/auth', authRoutes(passport, csrf, options.loginLimits ?? DEFAULT_LOGIN_LIMITS, secondFactors));
   api.use('/users', userRoutes(users, secondFactors));
   api.use('/operators', operatorRoutes(services.operators));

@@ -1,6 +1,6 @@
 import session from 'express-session';
 import type { DataSource, Repository } from 'typeorm';
-import { LessThan } from 'typeorm';
+import { LessThan, Not } from 'typeorm';
 import { SessionRow } from '../entities/session.entity';
 import { portableSql } from '../portable-sql';
 
@@ -95,6 +95,12 @@ export class DatabaseSessionStore extends session.Store {
   /** Ends every session of one user (deactivation, password reset). */
   async destroyForUser(userId: number): Promise<number> {
     const result = await this.rows.delete({ userId });
+    return result.affected ?? 0;
+  }
+
+  /** Ends every session of one user but the one given (the member's own, after they change their password). */
+  async destroyForUserExcept(userId: number, keepSid: string): Promise<number> {
+    const result = await this.rows.delete({ userId, sid: Not(keepSid) });
     return result.affected ?? 0;
   }
 

@@ -2,7 +2,7 @@ import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn } from 
 import { TIMESTAMP_TYPE } from './column-types';
 
 /** Kinds of messages Tidemark sends. */
-export type MailKind = 'governance-pack' | 'recall-digest' | 'action-reminder';
+export type MailKind = 'governance-pack' | 'recall-digest' | 'action-reminder' | 'password-changed';
 /** Delivery state: queued → sent, or failed after the last retry. */
 export type MailStatus = 'queued' | 'sent' | 'failed';
 

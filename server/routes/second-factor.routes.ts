@@ -78,7 +78,7 @@ export function secondFactorRoutes(secondFactors: SecondFactorService, csrf: Csr
 
   router.post('/disable', codeAttempts, validateBody(oneTimeCodeRequestSchema), async (req, res) => {
     const user = signedInUser(req);
-    await secondFactors.disable(user, req.body.code);
+    await secondFactors.disable(user, req.body.code, req.sessionID);
     delete req.session.secondFactorVerifiedFor;
     const body: SessionResponse = { user: sessionUser(user), secondFactor: await secondFactors.stateFor(user, undefined) };
     res.json(body);

@@ -127,6 +127,29 @@ export class MailService {
     return mapEntry(await repository.findOneByOrFail({ id }));
   }
 
+  /**
+   * Tells a member their password was just changed, so a change they did not make is noticed
+   * (common practice). Says nothing of the password itself.
+   */
+  async queuePasswordChangedNotice(member: { email: string; displayName: string }, endedSessions: number, now = new Date()): Promise<void> {
+    await this.enqueue(
+      'password-changed',
+      member.email,
+      'Tidemark: your password was changed',
+      [
+        `Dear ${member.displayName},`,
+        '',
+        `The password of your Tidemark account was changed on ${now.toISOString().slice(0, 16).replace('T', ' ')} UTC.`,
+        endedSessions === 0 ? 'You had no other open sessions.' : `Your ${endedSessions === 1 ? 'other open session was' : `${endedSessions} other open sessions were`} signed out.`,
+        '',
+        'If you did not make this change, tell your practice administrator at once: they can set a new password and reset your sign-in protection.',
+        `Sign in: ${this.options.appUrl}/sign-in`,
+      ].join('\n'),
+      null,
+      now,
+    );
+  }
+
   /** "Governance pack ready" to every active governance member: a link, never patient data. */
   async queueGovernancePack(user: Express.User, auditId: number, cycleId: number | null): Promise<{ queued: number }> {
     if (user.role !== 'audit_lead') throw HttpError.forbidden('The audit lead sends the governance pack.');

@@ -124,7 +124,7 @@ describe('SecondFactorService (fixed clock)', () => {
   it('switches codes off with a current code, but not for a role that must keep them', async () => {
     const { secret } = await enrol(partner);
     now += STEP_MS;
-    await t.secondFactors.disable(partner, totpCode(secret, now));
+    await t.secondFactors.disable(partner, totpCode(secret, now), 'no-such-session');
     expect(await t.secondFactors.enabledAt(partner.id)).toBeNull();
     expect(await t.dataSource.getRepository(RecoveryCode).countBy({ userId: partner.id })).toBe(0);
 
@@ -132,7 +132,7 @@ describe('SecondFactorService (fixed clock)', () => {
     const leadEnabledAt = now;
     const leadFactor = await enrol(lead);
     now += STEP_MS;
-    await expect(t.secondFactors.disable(lead, totpCode(leadFactor.secret, now))).rejects.toMatchObject({ status: 403 });
+    await expect(t.secondFactors.disable(lead, totpCode(leadFactor.secret, now), 'no-such-session')).rejects.toMatchObject({ status: 403 });
     expect(await t.secondFactors.enabledAt(lead.id)).toBe(leadEnabledAt);
   });
 });

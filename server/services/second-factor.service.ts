@@ -192,22 +192,26 @@ export class SecondFactorService {
   }
 
   /** Switches one-time codes off; needs a current code, and is refused where the role must keep them. */
-  async disable(user: Express.User, code: string): Promise<void> {
+  async disable(user: Express.User, code: string, keepSid: string): Promise<void> {
     if (isSecondFactorRequired(user.role, this.policy)) {
       throw HttpError.forbidden('Your role must keep one-time codes on. An administrator can reset them if your phone is lost.');
     }
     const row = await this.enabledRow(user.id);
     await this.consumeOneTimeCode(row, code);
     await this.removeAll(user.id);
+    // A sign-in factor changed: the member's other sessions end, this one carries on (OWASP ASVS 5.0 §7.4.3).
+    await this.sessions.destroyForUserExcept(user.id, keepSid);
   }
 
   /**
    * An administrator's reset (e.g. a lost phone): removes the member's one-time codes and
    * recovery codes and ends every session of theirs. The member sets up codes again at their
-   * next sign-in if their role requires them.
+   * next sign-in if their role requires them. `actingUserId` is the administrator, or null for
+   * the server's command line.
    */
-  async reset(userId: number, actingUserId: number): Promise<void> {
-    if (userId === actingUserId) {
+  async reset(userId: number, actingUserId: number | null): Promise<void> {
+    // null: the server machine's command line (npm run reset-sign-in), where a lone admin may reset their own.
+    if (actingUserId !== null && userId === actingUserId) {
       throw HttpError.conflict('Change your own one-time codes on your Sign-in protection page.');
     }
     if (!(await this.users.existsBy({ id: userId }))) throw HttpError.notFound('The team member');

@@ -1,5 +1,5 @@
 import { IsNull, Not, type DataSource, type Repository } from 'typeorm';
-import type { Role, UserView } from '@tidemark/shared';
+import type { PasswordChange, Role, UserView } from '@tidemark/shared';
 import { z } from 'zod';
 import { userCreateSchema, userUpdateSchema } from '@tidemark/shared';
 import { isCommonPassword } from '../auth/common-passwords';
@@ -161,6 +161,25 @@ export class UserService {
     return mapUser(saved, await this.isSecondFactorOn(id));
   }
 
+  /**
+   * A member changes their own password (OWASP ASVS 5.0 §6.2.2–6.2.3): the current one must be
+   * right, the new one not common. Every other session of theirs ends (§7.4.3); the one given
+   * stays signed in. Returns the member and how many sessions ended.
+   *
+   * @throws {HttpError} 400 with a field error when the current password is wrong or the new one is common
+   */
+  async changeOwnPassword(userId: number, change: PasswordChange, keepSid: string): Promise<{ user: User; endedSessions: number }> {
+    const user = await this.users.findOneBy({ id: userId, active: true });
+    if (!user) throw HttpError.notFound('Your account');
+    if (!(await verifyPassword(change.currentPassword, user.passwordHash))) {
+      throw HttpError.badRequest('Your current password is not right.', { currentPassword: 'This is not your current password.' });
+    }
+    this.assertNotCommon(change.newPassword, 'newPassword');
+    await this.users.update({ id: userId }, { passwordHash: await hashPassword(change.newPassword, this.scryptCost) });
+    const endedSessions = await this.sessions.destroyForUserExcept(userId, keepSid);
+    return { user, endedSessions };
+  }
+
   /** Creates a user unless the e-mail exists (tests and the demo seed). */
   async ensure(input: UserCreate): Promise<void> {
     await this.ensureAll([input], input.password);
@@ -190,9 +209,9 @@ export class UserService {
     return this.factors.existsBy({ userId, enabledAt: Not(IsNull()) });
   }
 
-  private assertNotCommon(password: string): void {
+  private assertNotCommon(password: string, field = 'password'): void {
     if (isCommonPassword(password)) {
-      throw HttpError.badRequest('Choose a less common password.', { password: 'This password is on a list of common passwords. Choose another.' });
+      throw HttpError.badRequest('Choose a less common password.', { [field]: 'This password is on a list of common passwords. Choose another.' });
     }
   }
 }

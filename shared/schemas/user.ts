@@ -56,3 +56,22 @@ export interface UserView {
   /** One-time codes (the second sign-in factor) are switched on for this member. */
   secondFactorEnabled: boolean;
 }
+
+/**
+ * `POST /api/auth/password` body: a member changes their own password, proving the current one
+ * (OWASP ASVS 5.0 §6.2.2, §6.2.3). The new one must differ from it; the server also refuses
+ * common passwords.
+ */
+export const passwordChangeSchema = z
+  .object({
+    currentPassword: z.string({ error: 'Enter your current password.' }).min(1, 'Enter your current password.').max(256),
+    newPassword: passwordSchema,
+  })
+  .refine((body) => body.newPassword !== body.currentPassword, { path: ['newPassword'], message: 'Choose a password different from the current one.' });
+export type PasswordChange = z.infer<typeof passwordChangeSchema>;
+
+/** Response of `POST /api/auth/password`. */
+export interface PasswordChangeResult {
+  /** How many other sessions of the member were ended (this one stays signed in). */
+  endedSessions: number;
+}

@@ -195,18 +195,24 @@ describe('second factor, required for admin and audit lead', () => {
     expect(await rows.existsBy({ sid: row.sid })).toBe(false);
   });
 
-  it('lets people outside the required roles switch codes off with a current code, never admins or audit leads', async () => {
+  it('lets people outside the required roles switch codes off with a current code, ending their other sessions, never admins or audit leads', async () => {
     const partner = await passwordOnly(t, 'partner');
     expect((await partner.get('/api/auth/second-factor')).body).toMatchObject({ isEnabled: false, isRequired: false });
     nextStep();
     const { secret } = await enrol(partner);
     const wrong = await partner.post('/api/auth/second-factor/disable', { code: totpCode(secret, now) });
     expect(wrong.status).toBe(401);
+    // A second session of the partner, past its code, ends when codes go off elsewhere (ASVS 5.0 §7.4.3).
+    nextStep();
+    const elsewhere = await passwordOnly(t, 'partner');
+    expect((await elsewhere.post('/api/auth/second-factor/verify', { method: 'one-time-code', code: totpCode(secret, now) })).status).toBe(200);
+    expect((await elsewhere.get('/api/cases')).status).toBe(200);
     nextStep();
     const off = await partner.post('/api/auth/second-factor/disable', { code: totpCode(secret, now) });
     expect(off.status).toBe(200);
     expect(off.body.secondFactor).toBe('none');
     expect((await partner.get('/api/cases')).status).toBe(200);
+    expect((await elsewhere.get('/api/cases')).status).toBe(401);
     expect((await new ApiClient(t.app).signIn('partner@example.org')).body.secondFactor).toBe('none');
 
     const lead = await signedInWithCode(t, 'audit_lead');

@@ -8,7 +8,7 @@
  * /api/health), the role checks in server/services/clinical-access.ts, audit-access.ts and
  * the routes' requireRole lists. Rules the table encodes:
  *  - anonymous: 401 everywhere except health and sign-in (sign-out of nobody is a harmless 204);
- *  - one-time codes: every signed-in person manages their own (set up, verify, new recovery
+ *  - own password and one-time codes: every signed-in person manages their own (set up, verify, new recovery
  *    codes, switch off); only the admin resets someone else's;
  *  - patient-level records (patients, cases, sites, visits, complications, photos): admin and
  *    partner read, never write (403); governance 403 (de-identified results only);
@@ -43,6 +43,7 @@ export const ROUTE_ACCESS: Readonly<Record<string, ExpectedStatuses>> = {
   'GET /api/auth/me': /*                            */ s(401, 200, 200, 200, 200, 200),
   'POST /api/auth/logout': /*                       */ s(204, 204, 204, 204, 204, 204),
   'GET /api/auth/sign-in-options': /*               */ s(200, 200, 200, 200, 200, 200),
+  'POST /api/auth/password': /*                     */ s(401, 200, 200, 200, 200, 200),
   // One-time codes (server/routes/second-factor.routes.ts): each person for themselves; tests run the 'offered' policy.
   'GET /api/auth/second-factor': /*                 */ s(401, 200, 200, 200, 200, 200),
   'POST /api/auth/second-factor/enrolment': /*      */ s(401, 200, 200, 200, 200, 200),

@@ -36,6 +36,12 @@ export const ROUTE_CALLS: Readonly<Record<string, Prepare>> = {
   'GET /api/auth/me': async () => ({ url: '/api/auth/me' }),
   'POST /api/auth/logout': async (context, actor) => ({ url: '/api/auth/logout', client: await ownClient(context, actor) }),
   'GET /api/auth/sign-in-options': async () => ({ url: '/api/auth/sign-in-options' }),
+  'POST /api/auth/password': async (context, actor) => {
+    // A member of their own: changing a demo account's password would lock the other calls out.
+    if (actor === 'anonymous') return { url: '/api/auth/password', body: { currentPassword: 'anything-at-all', newPassword: 'matrix-new-passphrase-0' }, client: new ApiClient(context.world.t.app) };
+    const member = await context.member(actor);
+    return { url: '/api/auth/password', body: { currentPassword: member.password, newPassword: `matrix-new-passphrase-${context.next()}` }, client: member.client };
+  },
   'GET /api/auth/second-factor': async () => ({ url: '/api/auth/second-factor' }),
   'POST /api/auth/second-factor/enrolment': async (context, actor) => ({
     url: '/api/auth/second-factor/enrolment',

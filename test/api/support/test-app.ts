@@ -11,6 +11,7 @@ import nodemailer, { type Transporter } from 'nodemailer';
 import { LocalPhotoStorage, type PhotoStorage } from '../../../server/storage/photo-storage';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../../server/demo/demo-accounts';
 import type { LoginLimits } from '../../../server/routes/auth.routes';
+import type { PasswordChangeLimits } from '../../../server/routes/password.routes';
 import type { InstallationFacts } from '../../../server/services/system-overview.service';
 import { openTestDatabase } from './test-database';
 
@@ -28,7 +29,7 @@ export interface TestApp extends TidemarkApp {
 }
 
 /** Builds the app on a fresh migrated database (a temporary SQLite file, or PostgreSQL under TIDEMARK_TEST_PG_URL) with the demo accounts. */
-export async function createTestApp(options: { loginLimits?: LoginLimits; trustProxy?: boolean; mailTransport?: Transporter; photoStorage?: PhotoStorage; secondFactor?: SecondFactorPolicy; clock?: () => number; installation?: InstallationFacts } = {}): Promise<TestApp> {
+export async function createTestApp(options: { loginLimits?: LoginLimits; passwordChangeLimits?: PasswordChangeLimits; trustProxy?: boolean; mailTransport?: Transporter; photoStorage?: PhotoStorage; secondFactor?: SecondFactorPolicy; clock?: () => number; installation?: InstallationFacts } = {}): Promise<TestApp> {
   const dataDir = mkdtempSync(path.join(tmpdir(), 'tidemark-test-'));
   const database = await openTestDatabase(dataDir);
   const dataSource = database.dataSource;
@@ -42,6 +43,7 @@ export async function createTestApp(options: { loginLimits?: LoginLimits; trustP
     mail: { transport: options.mailTransport ?? nodemailer.createTransport({ jsonTransport: true }), from: 'Tidemark <no-reply@example.org>', appUrl: 'http://localhost:3000' },
     scryptCost: TEST_SCRYPT_COST,
     loginLimits: options.loginLimits ?? { perAccount: 1000, perAddress: 1000, windowMs: 60_000 },
+    passwordChangeLimits: options.passwordChangeLimits ?? { perMember: 1000, windowMs: 60_000 },
     logLevel: 'silent',
     trustProxy: options.trustProxy,
     // Most suites sign in as admin or audit lead with a password only; second-factor tests pass 'required'.

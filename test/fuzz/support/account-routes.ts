@@ -1,5 +1,5 @@
 import fc from 'fast-check';
-import { loginSchema, oneTimeCodeRequestSchema, secondFactorVerifySchema, userCreateSchema, userUpdateSchema } from '@tidemark/shared';
+import { loginSchema, oneTimeCodeRequestSchema, passwordChangeSchema, secondFactorVerifySchema, userCreateSchema, userUpdateSchema } from '@tidemark/shared';
 import { DEMO_PASSWORD } from '../../../server/demo/demo-accounts';
 import { demoEmail } from '../../api/support/test-app';
 import { nastyString } from '../generators';
@@ -31,6 +31,22 @@ export const ACCOUNT_ROUTES: readonly FuzzRoute[] = [
     refusedActors: [],
     needsFreshSession: true,
     acceptsIgnoredBody: 'Signing out takes no input and is always allowed, so a well-formed request with any body is a 204.',
+  },
+  {
+    method: 'POST',
+    path: '/api/auth/password',
+    group: 'auth',
+    body: 'json',
+    schema: passwordChangeSchema,
+    actor: 'admin',
+    refusedActors: ['anonymous'],
+    validBody: () => ({ currentPassword: DEMO_PASSWORD, newPassword: 'fuzz-new-passphrase-71' }),
+    // A well-formed change with a wrong current password: 400, then 429 once the member's limit is reached; never a change.
+    refused: () =>
+      fc.record({
+        currentPassword: fc.oneof(nastyString, fc.string({ minLength: 1, maxLength: 256 })).filter((password) => password.length >= 1 && password.length <= 256 && password !== DEMO_PASSWORD),
+        newPassword: fc.constant('fuzz-new-passphrase-71'),
+      }).map((body) => ({ body })),
   },
   {
     method: 'POST',

@@ -3,6 +3,8 @@ import { Injectable, inject } from '@angular/core';
 import type {
   EnrolmentConfirmation,
   OneTimeCodeRequest,
+  PasswordChange,
+  PasswordChangeResult,
   RecoveryCodesResponse,
   SecondFactorEnrolment,
   SecondFactorStatus,
@@ -39,6 +41,11 @@ export class AccountSecurityApi {
   /** Replaces every recovery code; needs a current code. */
   regenerateRecoveryCodes(request: OneTimeCodeRequest): Observable<RecoveryCodesResponse> {
     return this.http.post<RecoveryCodesResponse>(`${BASE}/recovery-codes`, request, { context: showsOwnErrors() });
+  }
+
+  /** Changes the signed-in person's own password; their other sessions end. Errors show beside the fields. */
+  changePassword(change: PasswordChange): Observable<PasswordChangeResult> {
+    return this.http.post<PasswordChangeResult>('/api/auth/password', change, { context: showsOwnErrors() });
   }
 
   /** Switches codes off; needs a current code, refused where the role must keep them. */

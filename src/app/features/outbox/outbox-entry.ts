@@ -1,5 +1,5 @@
 /** Kinds of message Tidemark sends (server `MailKind`). */
-export type OutboxKind = 'governance-pack' | 'recall-digest' | 'action-reminder';
+export type OutboxKind = 'governance-pack' | 'recall-digest' | 'action-reminder' | 'password-changed';
 
 /** Where a message stands in the queue. */
 export type OutboxStatus = 'queued' | 'sent' | 'failed';
@@ -33,6 +33,7 @@ export const OUTBOX_KIND_LABELS: Readonly<Record<OutboxKind, string>> = {
   'governance-pack': 'Committee pack notice',
   'recall-digest': 'Weekly recall round-up',
   'action-reminder': 'Action plan nudge',
+  'password-changed': 'Password change notice',
 };
 
 /** Whether an administrator may send the message again now. */

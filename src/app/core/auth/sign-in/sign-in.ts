@@ -20,6 +20,7 @@ import { ACCOUNT_SECURITY_PATH } from '../account-security-path';
 import { AuthSession } from '../auth-session';
 import { CodeStep } from '../code-step/code-step';
 import { SIGN_IN_PATH } from '../sign-in-path';
+import { VisibilityToggle } from '../../../shared/forms/visibility-toggle/visibility-toggle';
 
 /** The sign-in form's controls. */
 interface SignInForm {
@@ -34,17 +35,7 @@ interface SignInForm {
 @Component({
   selector: 'tm-sign-in',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [
-    ReactiveFormsModule,
-    MatButtonModule,
-    MatFormFieldModule,
-    MatIconModule,
-    MatInputModule,
-    MatProgressSpinnerModule,
-    ClinicalCaution,
-    CodeStep,
-    Wordmark,
-  ],
+  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressSpinnerModule, ClinicalCaution, CodeStep, Wordmark, VisibilityToggle],
   templateUrl: './sign-in.html',
   styleUrl: './sign-in.scss',
 })
@@ -73,9 +64,6 @@ export class SignIn {
   /** Demo mode: one-time codes are offered to everyone but required of no one. */
   protected readonly isSecondFactorOptional = computed(() => this.signInOptions()?.secondFactorPolicy === 'offered');
 
-  protected togglePasswordVisibility(): void {
-    this.isPasswordVisible.update((visible) => !visible);
-  }
 
   protected signIn(): void {
     if (this.isSubmitting()) {

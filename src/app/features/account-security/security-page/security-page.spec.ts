@@ -65,6 +65,10 @@ describe('SecurityPage', () => {
       expect(await button(/Set up one-time codes/)).toBeTruthy();
     });
 
+    it('keeps the password form away until codes are on (the server lets nothing else through before)', () => {
+      expect(fixture.nativeElement.querySelector('tm-password-panel')).toBeNull();
+    });
+
     it('shows the QR code, the key in groups of four and asks for the first code', async () => {
       await (await button(/Set up one-time codes/)).click();
       const request = http.expectOne('/api/auth/second-factor/enrolment');
@@ -138,6 +142,11 @@ describe('SecurityPage', () => {
       expect(text()).toContain('Make new ones before they run out.');
       expect(await button(/New recovery codes/)).toBeTruthy();
       expect(await button('Switch off one-time codes')).toBeTruthy();
+    });
+
+    it('offers to change one’s own password', async () => {
+      expect(fixture.nativeElement.querySelector('tm-password-panel')).not.toBeNull();
+      expect(await button('Change password')).toBeTruthy();
     });
 
     it('asks for a current code, then shows the new recovery codes', async () => {

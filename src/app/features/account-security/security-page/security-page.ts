@@ -19,17 +19,19 @@ import { homePathFor } from '../../../core/shell/navigation';
 import { AccountSecurityApi } from '../account-security-api';
 import { CodePromptDialog, type CodePromptData } from '../code-prompt-dialog/code-prompt-dialog';
 import { EnrolmentPanel } from '../enrolment-panel/enrolment-panel';
+import { PasswordPanel } from '../password-panel/password-panel';
 import { RecoveryCodesPanel } from '../recovery-codes-panel/recovery-codes-panel';
 import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 
 /**
  * Sign-in protection: whether one-time codes are on, setting them up (QR code, key, first
- * code), recovery codes shown once, new recovery codes, and switching codes off.
+ * code), recovery codes shown once, new recovery codes, switching codes off, and changing
+ * one's own password (not while codes must first be set up: the server lets nothing else through).
  */
 @Component({
   selector: 'tm-security-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [LocalDatePipe, MatButtonModule, MatIconModule, MatProgressBarModule, EnrolmentPanel, RecoveryCodesPanel],
+  imports: [LocalDatePipe, MatButtonModule, MatIconModule, MatProgressBarModule, EnrolmentPanel, PasswordPanel, RecoveryCodesPanel],
   templateUrl: './security-page.html',
   styleUrl: './security-page.scss',
 })

@@ -14,6 +14,7 @@ import { describeHttpError } from '../../../core/http/describe-http-error';
 import { SERVER_ERROR, fieldMessage, zodValidator } from '../../../shared/forms/zod-validator';
 import { ROLE_SUMMARIES } from '../role-summaries';
 import { TeamApi } from '../team-api';
+import { VisibilityToggle } from '../../../shared/forms/visibility-toggle/visibility-toggle';
 
 /** The add-member form's controls. */
 interface AddMemberForm {
@@ -27,15 +28,7 @@ interface AddMemberForm {
 @Component({
   selector: 'tm-add-member-dialog',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [
-    ReactiveFormsModule,
-    MatButtonModule,
-    MatDialogModule,
-    MatFormFieldModule,
-    MatIconModule,
-    MatInputModule,
-    MatSelectModule,
-  ],
+  imports: [ReactiveFormsModule, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, VisibilityToggle],
   templateUrl: './add-member-dialog.html',
   styleUrl: './add-member-dialog.scss',
 })
@@ -69,9 +62,6 @@ export class AddMemberDialog {
   /** A failure that belongs to no single field. */
   protected readonly failure = signal<string | null>(null);
 
-  protected togglePasswordVisibility(): void {
-    this.isPasswordVisible.update((visible) => !visible);
-  }
 
   protected addMember(): void {
     if (this.isSaving()) {

@@ -8,7 +8,8 @@ import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldHarness } from '@angular/material/form-field/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
 import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH, type UserView } from '@tidemark/shared';
-import { MemberPasswordDialog, PASSWORDS_DIFFER } from './member-password-dialog';
+import { PASSWORDS_DIFFER } from '../../../shared/forms/matching-password';
+import { MemberPasswordDialog } from './member-password-dialog';
 
 const MEMBER: UserView = {
   id: 14,

@@ -1,31 +1,25 @@
 import { HttpErrorResponse } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { AbstractControl, FormControl, FormGroup, ReactiveFormsModule, ValidationErrors } from '@angular/forms';
+import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH, passwordSchema, type UserView } from '@tidemark/shared';
+import { PASSWORD_MIN_LENGTH, passwordSchema, type UserView } from '@tidemark/shared';
 import { apiErrorDetails } from '../../../core/http/api-error-details';
 import { describeHttpError } from '../../../core/http/describe-http-error';
+import { matchesPassword } from '../../../shared/forms/matching-password';
 import { SCHEMA_ERROR, SERVER_ERROR, fieldMessage, zodValidator } from '../../../shared/forms/zod-validator';
 import { TeamApi } from '../team-api';
+import { VisibilityToggle } from '../../../shared/forms/visibility-toggle/visibility-toggle';
+import { PasswordRules } from '../../../shared/forms/password-rules/password-rules';
 
 /** The new-password form's controls. */
 interface PasswordForm {
   password: FormControl<string>;
   repeat: FormControl<string>;
-}
-
-/** Said when the second entry differs from the first. */
-export const PASSWORDS_DIFFER = 'The two entries differ. Type the same password twice.';
-
-/** The repeat field matches the password field beside it. */
-function matchesPassword(control: AbstractControl<string>): ValidationErrors | null {
-  const password: unknown = control.parent?.get('password')?.value;
-  return control.value === '' || control.value === password ? null : { [SCHEMA_ERROR]: PASSWORDS_DIFFER };
 }
 
 /**
@@ -36,7 +30,7 @@ function matchesPassword(control: AbstractControl<string>): ValidationErrors | n
 @Component({
   selector: 'tm-member-password-dialog',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [ReactiveFormsModule, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule],
+  imports: [ReactiveFormsModule, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, VisibilityToggle, PasswordRules],
   template: `
     <h2 mat-dialog-title>New password for {{ member.displayName }}</h2>
     <form [formGroup]="form" (ngSubmit)="savePassword()" novalidate>
@@ -44,10 +38,7 @@ function matchesPassword(control: AbstractControl<string>): ValidationErrors | n
         <p class="intro">
           Saving signs {{ member.displayName }} out on every device. Give them the new password privately, in person or by phone.
         </p>
-        <ul class="rules" id="password-rules">
-          <li>At least {{ minLength }} characters, at most {{ maxLength }}. A few unrelated words make a strong one.</li>
-          <li>Passwords on a list of commonly used ones are refused.</li>
-        </ul>
+        <tm-password-rules id="password-rules" />
         <mat-form-field appearance="outline" subscriptSizing="dynamic">
           <mat-label>New password</mat-label>
           <input
@@ -58,16 +49,7 @@ function matchesPassword(control: AbstractControl<string>): ValidationErrors | n
             aria-describedby="password-rules"
             cdkFocusInitial
           />
-          <button
-            mat-icon-button
-            matSuffix
-            type="button"
-            (click)="togglePasswordVisibility()"
-            [attr.aria-label]="isPasswordVisible() ? 'Hide password' : 'Show password'"
-            [attr.aria-pressed]="isPasswordVisible()"
-          >
-            <mat-icon aria-hidden="true">{{ isPasswordVisible() ? 'visibility_off' : 'visibility' }}</mat-icon>
-          </button>
+          <tm-visibility-toggle matSuffix [(shown)]="isPasswordVisible" />
           <mat-hint>At least {{ minLength }} characters.</mat-hint>
           @if (fieldMessage(form.controls.password); as message) {
             <mat-error>{{ message }}</mat-error>
@@ -103,12 +85,11 @@ export class MemberPasswordDialog {
   /** Whose password is set. */
   protected readonly member = inject<UserView>(MAT_DIALOG_DATA);
   protected readonly minLength = PASSWORD_MIN_LENGTH;
-  protected readonly maxLength = PASSWORD_MAX_LENGTH;
   protected readonly fieldMessage = fieldMessage;
 
   protected readonly form = new FormGroup<PasswordForm>({
     password: new FormControl('', { nonNullable: true, validators: zodValidator(passwordSchema) }),
-    repeat: new FormControl('', { nonNullable: true, validators: matchesPassword }),
+    repeat: new FormControl('', { nonNullable: true, validators: matchesPassword('password') }),
   });
 
   protected readonly isSaving = signal(false);
@@ -123,9 +104,6 @@ export class MemberPasswordDialog {
       .subscribe(() => this.form.controls.repeat.updateValueAndValidity({ emitEvent: false }));
   }
 
-  protected togglePasswordVisibility(): void {
-    this.isPasswordVisible.update((isVisible) => !isVisible);
-  }
 
   protected savePassword(): void {
     if (this.isSaving()) return;
