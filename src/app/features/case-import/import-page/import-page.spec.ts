@@ -12,7 +12,7 @@ import { IMPORT_COLUMNS } from '@tidemark/shared';
 import { JOB_POLL_INTERVAL_MS } from '../../../shared/job-polling/poll-until-finished';
 import { nextRequest } from '../../../shared/job-polling/testing/next-request';
 import type { ImportRowError } from '../case-import-api';
-import { ImportPage } from './import-page';
+import { ImportPage, describeCounts } from './import-page';
 
 const NONE = { patients: 0, cases: 0, sites: 0, visits: 0 };
 const ERRORS: ImportRowError[] = Array.from({ length: 12 }, (_, index) => ({
@@ -124,5 +124,15 @@ describe('ImportPage', () => {
     await pick(big);
     expect(element().querySelector('[role="alert"]')?.textContent).toContain('files up to 10 MB are accepted');
     expect(await (await loader.getHarness(MatButtonHarness.with({ text: /Check and import/ }))).isDisabled()).toBe(true);
+  });
+
+  it('writes the counts the way the browser’s language writes numbers', () => {
+    const counts = { patients: 1, cases: 12_345, sites: 2, visits: 1 };
+    // Expected digits from Intl.NumberFormat itself, the reference for each locale's grouping.
+    for (const locale of ['en-GB', 'de-DE', 'fr-FR']) {
+      const grouped = new Intl.NumberFormat(locale).format(12_345);
+      expect(describeCounts(counts, locale)).toBe(`1 patient, ${grouped} cases, 2 sites and 1 recall visit were stored.`);
+    }
+    expect(new Intl.NumberFormat('de-DE').format(12_345)).toBe('12.345');
   });
 });

@@ -1,5 +1,5 @@
 import { HttpEventType, HttpResponse } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, DestroyRef, ElementRef, computed, inject, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, LOCALE_ID, ElementRef, computed, inject, signal, viewChild } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
@@ -28,9 +28,9 @@ export const ACCEPTED_IMPORT_TYPES = '.xlsx,.csv,application/vnd.openxmlformats-
 /** Where the page stands: nothing sent, sending the file, the server working, or an ending. */
 type ImportPhase = 'idle' | 'uploading' | 'working' | 'done' | 'rejected' | 'failed';
 
-/** The stored counts in one sentence. */
-export function describeCounts(counts: ImportCounts): string {
-  const count = (n: number, one: string, many: string) => `${n.toLocaleString('en-GB')} ${n === 1 ? one : many}`;
+/** The stored counts in one sentence, numbers written the way `locale` (Angular's `LOCALE_ID`) writes them. */
+export function describeCounts(counts: ImportCounts, locale: string): string {
+  const count = (n: number, one: string, many: string) => `${n.toLocaleString(locale)} ${n === 1 ? one : many}`;
   return `${count(counts.patients, 'patient', 'patients')}, ${count(counts.cases, 'case', 'cases')}, ${count(counts.sites, 'site', 'sites')} and ${count(counts.visits, 'recall visit', 'recall visits')} were stored.`;
 }
 
@@ -46,6 +46,8 @@ export class ImportPage {
   private readonly api = inject(CaseImportApi);
   private readonly destroyRef = inject(DestroyRef);
   private readonly pollIntervalMs = inject(JOB_POLL_INTERVAL_MS);
+  /** Numbers are written the way the browser's language writes them. */
+  private readonly locale = inject(LOCALE_ID);
   private readonly fileInput = viewChild.required<ElementRef<HTMLInputElement>>('fileInput');
 
   protected readonly accept = ACCEPTED_IMPORT_TYPES;
@@ -69,7 +71,7 @@ export class ImportPage {
   protected readonly rowsToCorrect = computed(() => new Set(this.job()?.errors.map((error) => error.row) ?? []).size);
   protected readonly storedSentence = computed(() => {
     const job = this.job();
-    return job ? describeCounts(job.counts) : '';
+    return job ? describeCounts(job.counts, this.locale) : '';
   });
 
   protected chooseFile(files: FileList | null): void {

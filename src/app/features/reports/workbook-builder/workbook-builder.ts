@@ -1,5 +1,5 @@
 import { DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, input, signal, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, LOCALE_ID, computed, effect, inject, input, signal, untracked } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
@@ -28,6 +28,8 @@ export class WorkbookBuilder {
   private readonly api = inject(ReportsApi);
   private readonly destroyRef = inject(DestroyRef);
   private readonly pollIntervalMs = inject(JOB_POLL_INTERVAL_MS);
+  /** Numbers are written the way the browser's language writes them. */
+  private readonly locale = inject(LOCALE_ID);
   private running: Subscription | null = null;
 
   /** The audit and scope the workbook covers. */
@@ -47,7 +49,7 @@ export class WorkbookBuilder {
   });
   protected readonly progressLabel = computed(() => {
     const rows = this.job()?.rows ?? 0;
-    return rows > 0 ? `Building the workbook: ${rows.toLocaleString('en-GB')} rows written` : 'Building the workbook';
+    return rows > 0 ? `Building the workbook: ${rows.toLocaleString(this.locale)} rows written` : 'Building the workbook';
   });
 
   constructor() {
