@@ -12,6 +12,9 @@ import { createPassport } from './auth/passport-setup';
 import { DatabaseSessionStore } from './auth/session-store';
 import { errorHandler } from './middleware/error-handler';
 import { requestLogger } from './middleware/request-logger';
+import type { DestinationStream } from 'pino';
+import { logSessionExpired } from './logging/security-events';
+import { signInAddressHash } from './logging/sign-in-address-hash';
 import { secondFactorGate } from './auth/second-factor-gate';
 import { SecondFactorService } from './services/second-factor.service';
 import { secondFactorRoutes } from './routes/second-factor.routes';
@@ -22,6 +25,8 @@ import { authRoutes, DEFAULT_LOGIN_LIMITS, SESSION_COOKIE, type LoginLimits } fr
 import { healthRoutes } from './routes/health.routes';
 import { userRoutes } from './routes/users.routes';
 import { passwordRoutes, type PasswordChangeLimits } from './routes/password.routes';
+import { ownSessionRoutes } from './routes/own-sessions.routes';
+import { OwnSessionsService } from './services/own-sessions.service';
 import { caseRoutes } from './routes/cases.routes';
 import { complicationRoutes, siteRoutes, visitRoutes } from './routes/clinical-edits.routes';
 import { patientRoutes } from './routes/patients.routes';
@@ -84,6 +89,8 @@ export interface AppOptions {
   passwordChangeLimits?: PasswordChangeLimits;
   /** pino level; 'silent' in tests. */
   logLevel?: string;
+  /** Where log lines go (standard output by default; the security-log tests pass a stream). */
+  logDestination?: DestinationStream;
   /** Express `trust proxy` when served behind a TLS-terminating proxy. */
   trustProxy?: boolean | number | string;
   /** One-time codes: `required` for admins and audit leads (default), or only `offered` (demo mode). */
@@ -168,6 +175,7 @@ const noStoreByDefault: RequestHandler = (_req, res, next) => {
 const absoluteTimeout: RequestHandler = (req, _res, next) => {
   const signedInAt = req.session?.signedInAt;
   if (signedInAt && Date.now() - signedInAt > SESSION_ABSOLUTE_MS) {
+    logSessionExpired(req, req.session.passport?.user, 'absolute');
     req.session.regenerate((error) => next(error));
     return;
   }
@@ -195,7 +203,8 @@ export function createApp(options: AppOptions): TidemarkApp {
   if (options.secret.length < 32) throw new Error('The session secret must be at least 32 characters.');
   const sessions = new DatabaseSessionStore(options.dataSource);
   const users = new UserService(options.dataSource, sessions, options.scryptCost ?? OWASP_SCRYPT_COST);
-  const passport = createPassport(users);
+  const passport = createPassport(users, signInAddressHash(options.secret));
+  const ownSessions = new OwnSessionsService(sessions, options.secret, SESSION_IDLE_MS, (userId) => users.exists(userId));
   const secondFactors = new SecondFactorService(options.dataSource, sessions, { policy: options.secondFactor ?? 'required', appSecret: options.secret, clock: options.clock });
   const csrf = createCsrfProtection(options.secret);
   const services = createServices(options.dataSource, options.photoStorage, options.mail);
@@ -207,7 +216,7 @@ export function createApp(options: AppOptions): TidemarkApp {
   if (options.trustProxy !== undefined) app.set('trust proxy', options.trustProxy);
 
   // pino-http; above `info`, where it writes no request line, only `req.log` (see the module).
-  app.use(requestLogger(options.logLevel ?? 'info'));
+  app.use(requestLogger(options.logLevel ?? 'info', options.logDestination));
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -246,9 +255,10 @@ export function createApp(options: AppOptions): TidemarkApp {
   // Before every resource: a session waiting for its code, or one that must set codes up first, reaches nothing else.
   api.use(secondFactorGate(secondFactors));
   api.use('/auth/second-factor', secondFactorRoutes(secondFactors, csrf, options.loginLimits ?? DEFAULT_LOGIN_LIMITS));
+  api.use('/auth/sessions', ownSessionRoutes(ownSessions));
   api.use('/auth/password', passwordRoutes(users, services.mail, options.passwordChangeLimits));
   api.use('/auth', authRoutes(passport, csrf, options.loginLimits ?? DEFAULT_LOGIN_LIMITS, secondFactors));
-  api.use('/users', userRoutes(users, secondFactors));
+  api.use('/users', userRoutes(users, secondFactors, ownSessions));
   api.use('/operators', operatorRoutes(services.operators));
   api.use('/patients', patientRoutes(services.patients));
   api.use('/cases', caseRoutes(services));

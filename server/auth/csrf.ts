@@ -1,6 +1,7 @@
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import { doubleCsrf } from 'csrf-csrf';
 import { HttpError } from '../http-error';
+import { logCsrfRefused } from '../logging/security-events';
 
 /** Cookie and header names Angular's HttpClient uses by default. */
 export const XSRF_COOKIE = 'XSRF-TOKEN';
@@ -82,8 +83,12 @@ export function createCsrfProtection(secret: string): CsrfProtection {
 
   const middleware: RequestHandler = (req: Request, res: Response, next: NextFunction) => {
     if (UNSAFE_METHODS.has(req.method)) {
-      if (isCrossSite(req)) return next(new HttpError(403, 'csrf', 'Cross-site requests are refused.'));
+      if (isCrossSite(req)) {
+        logCsrfRefused(req, 'cross_site');
+        return next(new HttpError(403, 'csrf', 'Cross-site requests are refused.'));
+      }
       if (!validateRequest(req)) {
+        logCsrfRefused(req, 'token');
         issue(req, res, true);
         return next(new HttpError(403, 'csrf', 'The security token is missing or out of date. Reload the page and try again.'));
       }

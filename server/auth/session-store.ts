@@ -1,6 +1,6 @@
 import session from 'express-session';
 import type { DataSource, Repository } from 'typeorm';
-import { LessThan, Not } from 'typeorm';
+import { LessThan, MoreThan, Not } from 'typeorm';
 import { SessionRow } from '../entities/session.entity';
 import { portableSql } from '../portable-sql';
 
@@ -96,6 +96,18 @@ export class DatabaseSessionStore extends session.Store {
   async destroyForUser(userId: number): Promise<number> {
     const result = await this.rows.delete({ userId });
     return result.affected ?? 0;
+  }
+
+  /** The live session rows of one user (own-sessions list), oldest expiry first. */
+  async listForUser(userId: number, now = Date.now()): Promise<SessionRow[]> {
+    return this.rows.find({ where: { userId, expiresAt: MoreThan(now) }, order: { expiresAt: 'ASC' } });
+  }
+
+  /** Ends one session; returns whether a row was there. */
+  async destroyOne(sid: string): Promise<boolean> {
+    this.storedExpiry.delete(sid);
+    const result = await this.rows.delete({ sid });
+    return (result.affected ?? 0) > 0;
   }
 
   /** Ends every session of one user but the one given (the member's own, after they change their password). */

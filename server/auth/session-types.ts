@@ -8,6 +8,8 @@ declare module 'express-session' {
     csrfIssuedAt?: number;
     /** `enabledAt` (epoch ms) of the one-time-code set-up whose code was checked in this session. */
     secondFactorVerifiedFor?: number;
+    /** The browser and system it was signed in from, in a few words (own-sessions list), e.g. "Firefox on Linux". */
+    device?: string;
     passport?: { user?: number };
   }
 }

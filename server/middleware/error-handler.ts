@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler } from 'express';
 import type { ApiErrorBody, ApiErrorCode } from '@tidemark/shared';
 import { HttpError } from '../http-error';
+import { isHiddenRefusal, logAccessRefused, logInputRefused } from '../logging/security-events';
 import { isUniqueViolation } from '../services/unique-violation';
 
 interface HttpishError {
@@ -42,6 +43,10 @@ export const errorHandler: ErrorRequestHandler = (error: unknown, req, res, _nex
   const known = toHttpError(error);
   if (!known) req.log?.error({ err: error }, 'unhandled error');
   const status = known?.status ?? 500;
+  // Every refusal reaches this one place (ASVS 5.0 §16.3.2; 400s for §16.3.3), unless its route logged a more specific event.
+  if (known && (status === 401 || status === 403)) logAccessRefused(req, status, known.code);
+  else if (known && status === 404 && isHiddenRefusal(error)) logAccessRefused(req, status, known.code);
+  else if (known && status === 400) logInputRefused(req, known.code, Object.keys(known.fields ?? {}));
   const body: ApiErrorBody = {
     error: {
       code: known?.code ?? 'internal',

@@ -4,9 +4,11 @@ import { loginSchema, type SessionResponse, type SignInOptions } from '@tidemark
 import type { CsrfProtection } from '../auth/csrf';
 import { SIGN_IN_FAILED_MESSAGE, type PassportInstance } from '../auth/passport-setup';
 import { HttpError } from '../http-error';
+import { logSignInRateLimited, logSignOut } from '../logging/security-events';
 import { requireAuth } from '../middleware/require-role';
 import { validateBody } from '../middleware/validate';
 import type { SecondFactorService } from '../services/second-factor.service';
+import { describeDevice } from '../auth/device-description';
 import { sessionUser } from './session-user';
 
 /** Limits on failed sign-ins. */
@@ -20,8 +22,9 @@ export interface LoginLimits {
 
 export const DEFAULT_LOGIN_LIMITS: LoginLimits = { perAccount: 5, perAddress: 50, windowMs: 15 * 60 * 1000 };
 
-function tooManyAttempts(windowMs: number) {
-  return (_req: Request, res: Response) => {
+function tooManyAttempts(windowMs: number, limit: 'address' | 'account') {
+  return (req: Request, res: Response) => {
+    logSignInRateLimited(req, limit);
     const minutes = Math.ceil(windowMs / 60_000);
     res.status(429).json({
       error: { code: 'rate_limited', message: `Too many failed sign-ins. Try again in up to ${minutes} minutes.` },
@@ -38,12 +41,12 @@ function emailKey(req: Request): string {
 export function authRoutes(passport: PassportInstance, csrf: CsrfProtection, limits: LoginLimits, secondFactors: SecondFactorService): Router {
   const router = Router();
   const common = { windowMs: limits.windowMs, standardHeaders: 'draft-7' as const, legacyHeaders: false, skipSuccessfulRequests: true };
-  const perAddress = rateLimit({ ...common, limit: limits.perAddress, keyGenerator: (req) => ipKeyGenerator(req.ip ?? ''), handler: tooManyAttempts(limits.windowMs) });
+  const perAddress = rateLimit({ ...common, limit: limits.perAddress, keyGenerator: (req) => ipKeyGenerator(req.ip ?? ''), handler: tooManyAttempts(limits.windowMs, 'address') });
   const perAccount = rateLimit({
     ...common,
     limit: limits.perAccount,
     keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${emailKey(req)}`,
-    handler: tooManyAttempts(limits.windowMs),
+    handler: tooManyAttempts(limits.windowMs, 'account'),
   });
 
   router.post('/login', perAddress, perAccount, validateBody(loginSchema), (req: Request, res: Response, next: NextFunction) => {
@@ -54,6 +57,7 @@ export function authRoutes(passport: PassportInstance, csrf: CsrfProtection, lim
       req.login(user, (loginError) => {
         if (loginError) return next(loginError);
         req.session.signedInAt = Date.now();
+        req.session.device = describeDevice(req.get('user-agent'));
         csrf.reissue(req, res);
         // With one-time codes on, the session is only "password checked" until the code comes (second-factor.routes.ts).
         secondFactors
@@ -79,10 +83,12 @@ export function authRoutes(passport: PassportInstance, csrf: CsrfProtection, lim
   });
 
   router.post('/logout', (req, res, next) => {
+    const userId = req.user?.id;
     req.logout((logoutError) => {
       if (logoutError) return next(logoutError);
       req.session.destroy((destroyError) => {
         if (destroyError) return next(destroyError);
+        if (userId !== undefined) logSignOut(req, userId);
         res.clearCookie(SESSION_COOKIE);
         res.status(204).end();
       });

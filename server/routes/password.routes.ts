@@ -1,6 +1,8 @@
 import { Router, type Request, type Response } from 'express';
 import { rateLimit } from 'express-rate-limit';
 import { passwordChangeSchema, type PasswordChange, type PasswordChangeResult } from '@tidemark/shared';
+import { HttpError } from '../http-error';
+import { logPasswordChanged, logPasswordChangeRateLimited, logPasswordChangeRefused } from '../logging/security-events';
 import { requireAuth } from '../middleware/require-role';
 import { validateBody } from '../middleware/validate';
 import type { MailService } from '../services/mail.service';
@@ -29,18 +31,33 @@ export function passwordRoutes(users: UserService, mail: MailService, limits: Pa
     legacyHeaders: false,
     skipSuccessfulRequests: true,
     keyGenerator: (req) => `member:${(req.user as Express.User).id}`,
-    handler: (_req: Request, res: Response) => {
+    handler: (req: Request, res: Response) => {
+      logPasswordChangeRateLimited(req, req.user?.id);
       const minutes = Math.ceil(limits.windowMs / 60_000);
       res.status(429).json({ error: { code: 'rate_limited', message: `Too many refused password changes. Try again in up to ${minutes} minutes.` } });
     },
   });
 
   router.post('/', requireAuth, perMember, validateBody(passwordChangeSchema), async (req, res) => {
-    const { user, endedSessions } = await users.changeOwnPassword((req.user as Express.User).id, req.body as PasswordChange, req.sessionID);
+    const userId = (req.user as Express.User).id;
+    const { user, endedSessions } = await users.changeOwnPassword(userId, req.body as PasswordChange, req.sessionID).catch((error: unknown) => {
+      // A wrong current password is a failed authentication (ASVS 5.0 §16.3.1); the refusal still goes on to the error handler.
+      const refusal = error instanceof HttpError ? refusalOf(error) : undefined;
+      if (refusal) logPasswordChangeRefused(req, userId, refusal);
+      throw error;
+    });
+    logPasswordChanged(req, userId, endedSessions);
     await mail.queuePasswordChangedNotice(user, endedSessions);
     const body: PasswordChangeResult = { endedSessions };
     res.json(body);
   });
 
   return router;
+}
+
+/** Which refusal of UserService.changeOwnPassword an error is, by the field it names. */
+function refusalOf(error: HttpError): 'wrong_current_password' | 'common_password' | undefined {
+  if (error.fields?.['currentPassword']) return 'wrong_current_password';
+  if (error.fields?.['newPassword']) return 'common_password';
+  return undefined;
 }

@@ -9,6 +9,7 @@ import {
 } from '@tidemark/shared';
 import type { CsrfProtection } from '../auth/csrf';
 import { HttpError } from '../http-error';
+import { logSecondFactorAccepted, logSecondFactorChanged, logSecondFactorRateLimited, logSecondFactorRefused, type CodeMethod } from '../logging/security-events';
 import { requireAuth } from '../middleware/require-role';
 import { validateBody } from '../middleware/validate';
 import type { SecondFactorService } from '../services/second-factor.service';
@@ -32,7 +33,8 @@ export function secondFactorRoutes(secondFactors: SecondFactorService, csrf: Csr
     legacyHeaders: false,
     skipSuccessfulRequests: true,
     keyGenerator: (req) => `second-factor|${req.user?.id ?? 0}`,
-    handler: (_req: Request, res: Response) => {
+    handler: (req: Request, res: Response) => {
+      logSecondFactorRateLimited(req, req.user?.id);
       const minutes = Math.ceil(limits.windowMs / 60_000);
       res.status(429).json({ error: { code: 'rate_limited', message: `Too many wrong codes. Try again in up to ${minutes} minutes.` } });
     },
@@ -44,8 +46,10 @@ export function secondFactorRoutes(secondFactors: SecondFactorService, csrf: Csr
     if ((await secondFactors.stateFor(user, req.session.secondFactorVerifiedFor)) !== 'pending') {
       throw HttpError.conflict('This session is not waiting for a code.');
     }
-    const verifiedFor = await secondFactors.verify(user.id, req.body);
+    const method: CodeMethod = req.body.method;
+    const verifiedFor = await refusalLogged(req, user.id, method, secondFactors.verify(user.id, req.body));
     await renewSession(req, res, csrf, user, verifiedFor);
+    logSecondFactorAccepted(req, user.id, method);
     const body: SessionResponse = { user: sessionUser(user), secondFactor: 'verified' };
     res.json(body);
   });
@@ -62,24 +66,28 @@ export function secondFactorRoutes(secondFactors: SecondFactorService, csrf: Csr
 
   router.post('/enrolment/confirm', codeAttempts, validateBody(oneTimeCodeRequestSchema), async (req, res) => {
     const user = signedInUser(req);
-    const { recoveryCodes, enabledAt } = await secondFactors.confirmEnrolment(user, req.body.code);
+    const { recoveryCodes, enabledAt } = await refusalLogged(req, user.id, 'one-time-code', secondFactors.confirmEnrolment(user, req.body.code));
     // The session gains a higher assurance level: give it a new id (session fixation defence).
     await renewSession(req, res, csrf, user, enabledAt);
+    logSecondFactorChanged(req, user.id, 'enabled');
     const body: EnrolmentConfirmation = { recoveryCodes, session: { user: sessionUser(user), secondFactor: 'verified' } };
     res.set('Cache-Control', 'no-store');
     res.json(body);
   });
 
   router.post('/recovery-codes', codeAttempts, validateBody(oneTimeCodeRequestSchema), async (req, res) => {
-    const body: RecoveryCodesResponse = { recoveryCodes: await secondFactors.regenerateRecoveryCodes(signedInUser(req), req.body.code) };
+    const user = signedInUser(req);
+    const body: RecoveryCodesResponse = { recoveryCodes: await refusalLogged(req, user.id, 'one-time-code', secondFactors.regenerateRecoveryCodes(user, req.body.code)) };
+    logSecondFactorChanged(req, user.id, 'recovery_codes_renewed');
     res.set('Cache-Control', 'no-store');
     res.json(body);
   });
 
   router.post('/disable', codeAttempts, validateBody(oneTimeCodeRequestSchema), async (req, res) => {
     const user = signedInUser(req);
-    await secondFactors.disable(user, req.body.code, req.sessionID);
+    await refusalLogged(req, user.id, 'one-time-code', secondFactors.disable(user, req.body.code, req.sessionID));
     delete req.session.secondFactorVerifiedFor;
+    logSecondFactorChanged(req, user.id, 'disabled');
     const body: SessionResponse = { user: sessionUser(user), secondFactor: await secondFactors.stateFor(user, undefined) };
     res.json(body);
   });
@@ -89,12 +97,21 @@ export function secondFactorRoutes(secondFactors: SecondFactorService, csrf: Csr
 
 /**
  * Gives the session a new id (passport ≥ 0.6 `req.login` regenerates it), keeps the original
- * sign-in time for the absolute limit, records the verified set-up and reissues the CSRF token.
+ * sign-in time for the absolute limit and the device it came from, records the verified set-up and reissues the CSRF token.
  */
 async function renewSession(req: Request, res: Response, csrf: CsrfProtection, user: Express.User, verifiedFor: number): Promise<void> {
-  const signedInAt = req.session.signedInAt ?? Date.now();
+  const { signedInAt = Date.now(), device } = req.session;
   await new Promise<void>((resolve, reject) => req.login(user, (error: unknown) => (error ? reject(error) : resolve())));
   req.session.signedInAt = signedInAt;
+  req.session.device = device;
   req.session.secondFactorVerifiedFor = verifiedFor;
   csrf.reissue(req, res);
+}
+
+/** Passes `work` through, first logging a wrong or used code (the refusal then reaches the error handler as before). */
+function refusalLogged<T>(req: Request, userId: number, method: CodeMethod, work: Promise<T>): Promise<T> {
+  return work.catch((error: unknown) => {
+    if (error instanceof HttpError && error.code === 'second_factor_invalid') logSecondFactorRefused(req, userId, method);
+    throw error;
+  });
 }

@@ -1,5 +1,6 @@
 import type { Role } from '@tidemark/shared';
 import { HttpError } from '../http-error';
+import { asHiddenRefusal } from '../logging/security-events';
 
 /** Roles that may read patient-level records and photos (DESIGN.md §2); clinicians only their own cases. */
 const READ_ALL: ReadonlySet<Role> = new Set<Role>(['admin', 'audit_lead', 'partner']);
@@ -32,15 +33,15 @@ export const clinicalAccess = {
     }
   },
 
-  /** A clinician reading someone else's case gets 404: the case's existence is not theirs to know. */
+  /** A clinician reading someone else's case gets 404: the case's existence is not theirs to know (the log still says refused). */
   assertCanRead(user: Express.User, clinicalCase: CaseOwnership): void {
     this.assertPatientLevel(user);
-    if (user.role === 'clinician' && clinicalCase.operatorId !== user.id) throw HttpError.notFound('The case');
+    if (user.role === 'clinician' && clinicalCase.operatorId !== user.id) throw asHiddenRefusal(HttpError.notFound('The case'));
   },
 
   assertCanWrite(user: Express.User, clinicalCase: CaseOwnership): void {
     this.assertCanRead(user, clinicalCase);
     this.assertWriter(user);
-    if (user.role === 'clinician' && clinicalCase.operatorId !== user.id) throw HttpError.notFound('The case');
+    if (user.role === 'clinician' && clinicalCase.operatorId !== user.id) throw asHiddenRefusal(HttpError.notFound('The case'));
   },
 };

@@ -48,6 +48,12 @@ interface SessionPrincipalRow {
   enabled_at: unknown;
 }
 
+/** Why the password step refused a sign-in. */
+export type SignInRefusal = 'unknown_account' | 'wrong_password' | 'inactive';
+
+/** What {@link UserService.authenticate} found: the member, or the refusal and the account the address belongs to (null: nobody's). */
+export type PasswordCheck = { user: Express.User } | { refusal: SignInRefusal; accountId: number | null };
+
 /** Users, sign-in checks and administration. */
 export class UserService {
   private readonly users: Repository<User>;
@@ -76,18 +82,23 @@ export class UserService {
     this.hydrateEnabledAt = columnHydrator(dataSource, UserSecondFactor, 'enabledAt');
   }
 
-  /** The active user with these credentials, or null. Records the sign-in time. */
-  async authenticate(email: string, password: string): Promise<Express.User | null> {
+  /**
+   * The active user with these credentials, or why not (for the security log only; the person
+   * is told the same sentence whatever the reason). Records the sign-in time.
+   */
+  async authenticate(email: string, password: string): Promise<PasswordCheck> {
     const user = await this.users.findOneBy({ email: email.trim().toLowerCase() });
     if (!user) {
       this.dummyHash ??= hashPassword('not-a-real-password', this.scryptCost);
       await verifyPassword(password, await this.dummyHash);
-      return null;
+      return { refusal: 'unknown_account', accountId: null };
     }
     const isMatch = await verifyPassword(password, user.passwordHash);
-    if (!isMatch || !user.active) return null;
+    // "inactive" only with the right password: a deactivated member's password in someone's hands.
+    if (!isMatch) return { refusal: 'wrong_password', accountId: user.id };
+    if (!user.active) return { refusal: 'inactive', accountId: user.id };
     await this.users.update({ id: user.id }, { lastSignInAt: new Date() });
-    return { id: user.id, email: user.email, displayName: user.displayName, role: user.role };
+    return { user: { id: user.id, email: user.email, displayName: user.displayName, role: user.role } };
   }
 
   /**
@@ -198,6 +209,11 @@ export class UserService {
     const passwordHash = await hashPassword(password, this.scryptCost);
     await this.users.save(missing.map((account) => this.users.create({ ...account, active: true, passwordHash, lastSignInAt: null })));
     return missing.length;
+  }
+
+  /** Whether a team member with this id exists (active or not). */
+  async exists(id: number): Promise<boolean> {
+    return this.users.existsBy({ id });
   }
 
   async count(): Promise<number> {

@@ -24,3 +24,29 @@ export interface SessionResponse {
   /** Where the session stands with the second factor; only `none` and `verified` open the app. */
   secondFactor: SecondFactorState;
 }
+
+/**
+ * One of the signed-in person's own sessions, as `GET /api/auth/sessions` lists them. `id` is
+ * an opaque handle derived from the session id with a keyed hash, never the session id itself.
+ */
+export interface OwnSession {
+  id: string;
+  /** Browser and system in a few words ("Firefox on Linux"). */
+  device: string;
+  /** ISO 8601; null for a session from before devices were recorded. */
+  signedInAt: string | null;
+  /** ISO 8601, to within a minute (the stored idle expiry moves at most once a minute). */
+  lastActiveAt: string;
+  /** The session this request came from. */
+  isCurrent: boolean;
+}
+
+/** The handle of {@link OwnSession} in a route (`DELETE /api/auth/sessions/:id`). */
+export const ownSessionHandleSchema = z.object({
+  id: z.string().regex(/^[A-Za-z0-9_-]{22}$/, 'No such session.'),
+});
+
+/** Answer of the routes that end sessions. */
+export interface EndedSessions {
+  endedSessions: number;
+}

@@ -1,7 +1,7 @@
-import { createClinicalWorld, type ClinicalWorld } from '../support/clinical-fixtures';
+import type { ClinicalWorld } from '../support/clinical-fixtures';
 import { listApiRoutes, parseRouteKey, routeKey } from '../support/route-inventory';
 import { ACTORS, REFUSAL_CODES, ROUTE_ACCESS, type Actor } from './route-access-table';
-import { RouteCallContext, databaseFingerprint, perform, type CaseOwner } from './route-call-context';
+import { closeRouteSweep, openRouteSweep, type RouteCallContext, databaseFingerprint, perform, type CaseOwner } from './route-call-context';
 import { ROUTE_CALLS } from './route-calls';
 
 /*
@@ -15,14 +15,10 @@ describe('access matrix: every API route for every actor (DESIGN.md §2)', () =>
   let context: RouteCallContext;
 
   beforeAll(async () => {
-    world = await createClinicalWorld();
-    context = new RouteCallContext(world);
-    await context.targets();
+    ({ world, context } = await openRouteSweep());
   });
   afterAll(async () => {
-    await world.t.exports.idle();
-    await world.t.imports.idle();
-    await world.close();
+    await closeRouteSweep(world);
   });
 
   it('has a table entry and a call for every registered route, and none for a route that is gone', () => {

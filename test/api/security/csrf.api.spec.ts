@@ -1,7 +1,7 @@
-import { createClinicalWorld, type ClinicalWorld } from '../support/clinical-fixtures';
+import type { ClinicalWorld } from '../support/clinical-fixtures';
 import { listApiRoutes, parseRouteKey, routeKey } from '../support/route-inventory';
 import { ACTORS, ROUTE_ACCESS, type Actor } from './route-access-table';
-import { RouteCallContext, databaseFingerprint, perform } from './route-call-context';
+import { closeRouteSweep, openRouteSweep, type RouteCallContext, databaseFingerprint, perform } from './route-call-context';
 import { ROUTE_CALLS } from './route-calls';
 
 /*
@@ -20,14 +20,10 @@ describe('CSRF: every state-changing route refuses a write without the token', (
   let context: RouteCallContext;
 
   beforeAll(async () => {
-    world = await createClinicalWorld();
-    context = new RouteCallContext(world);
-    await context.targets();
+    ({ world, context } = await openRouteSweep());
   });
   afterAll(async () => {
-    await world.t.exports.idle();
-    await world.t.imports.idle();
-    await world.close();
+    await closeRouteSweep(world);
   });
 
   it('covers every POST, PATCH, PUT and DELETE route the app registers', () => {

@@ -33,8 +33,8 @@ import { ROUTE_ACCESS } from './route-access-table';
  * every grouping), and the workbook of the live data and of a reported cycle is unzipped.
  */
 
-/** JSON keys whose full dates are audit metadata or the analysis date, not clinical events. */
-const METADATA_DATE_KEYS: ReadonlySet<string> = new Set(['asOf', 'frozenAt', 'periodStart', 'periodEnd', 'presentedDate', 'dueDate', 'reauditDate', 'surgeryFrom', 'surgeryTo']);
+/** JSON keys whose full dates are audit metadata, the analysis date or the member's own sign-in times, not clinical events. */
+const METADATA_DATE_KEYS: ReadonlySet<string> = new Set(['asOf', 'frozenAt', 'periodStart', 'periodEnd', 'presentedDate', 'dueDate', 'reauditDate', 'surgeryFrom', 'surgeryTo', 'signedInAt', 'lastActiveAt']);
 const FULL_DATE = /\d{4}-\d{2}-\d{2}/;
 
 /** Excel 1900 date system: serial 1 = 1900-01-01 with the 1900 leap-year bug, so day 0 is 1899-12-30 (ECMA-376 Part 1, §18.17.4.1). */
@@ -125,6 +125,7 @@ const GOVERNANCE_READS: Readonly<Record<string, (ids: Ids) => string[]>> = {
   'GET /api/auth/me': () => ['/api/auth/me'],
   'GET /api/auth/sign-in-options': () => ['/api/auth/sign-in-options'],
   'GET /api/auth/second-factor': () => ['/api/auth/second-factor'],
+  'GET /api/auth/sessions': () => ['/api/auth/sessions'],
   'GET /api/schedules': () => ['/api/schedules'],
   'GET /api/audits': () => ['/api/audits'],
   'GET /api/audits/:id': ({ auditId }) => [`/api/audits/${auditId}`],

@@ -8,7 +8,7 @@
  * /api/health), the role checks in server/services/clinical-access.ts, audit-access.ts and
  * the routes' requireRole lists. Rules the table encodes:
  *  - anonymous: 401 everywhere except health and sign-in (sign-out of nobody is a harmless 204);
- *  - own password and one-time codes: every signed-in person manages their own (set up, verify, new recovery
+ *  - own password, sessions and one-time codes: every signed-in person manages their own (set up, verify, new recovery
  *    codes, switch off); only the admin resets someone else's;
  *  - patient-level records (patients, cases, sites, visits, complications, photos): admin and
  *    partner read, never write (403); governance 403 (de-identified results only);
@@ -44,6 +44,9 @@ export const ROUTE_ACCESS: Readonly<Record<string, ExpectedStatuses>> = {
   'POST /api/auth/logout': /*                       */ s(204, 204, 204, 204, 204, 204),
   'GET /api/auth/sign-in-options': /*               */ s(200, 200, 200, 200, 200, 200),
   'POST /api/auth/password': /*                     */ s(401, 200, 200, 200, 200, 200),
+  'GET /api/auth/sessions': /*                      */ s(401, 200, 200, 200, 200, 200),
+  'POST /api/auth/sessions/end-others': /*          */ s(401, 200, 200, 200, 200, 200),
+  'DELETE /api/auth/sessions/:id': /*               */ s(401, 204, 204, 204, 204, 204),
   // One-time codes (server/routes/second-factor.routes.ts): each person for themselves; tests run the 'offered' policy.
   'GET /api/auth/second-factor': /*                 */ s(401, 200, 200, 200, 200, 200),
   'POST /api/auth/second-factor/enrolment': /*      */ s(401, 200, 200, 200, 200, 200),
@@ -56,6 +59,7 @@ export const ROUTE_ACCESS: Readonly<Record<string, ExpectedStatuses>> = {
   'POST /api/users': /*                             */ s(401, 201, 403, 403, 403, 403),
   'PATCH /api/users/:id': /*                        */ s(401, 200, 403, 403, 403, 403),
   'DELETE /api/users/:id/second-factor': /*         */ s(401, 204, 403, 403, 403, 403),
+  'DELETE /api/users/:id/sessions': /*              */ s(401, 200, 403, 403, 403, 403),
   'GET /api/operators': /*                          */ s(401, 200, 200, 200, 403, 200),
 
   'GET /api/patients': /*                           */ s(401, 200, 200, 200, 403, 200),

@@ -5,7 +5,7 @@ import type { Response } from 'supertest';
 import type { AuditView, CaseDetail, ComplicationView, CycleView, PhotoView, Role, StandardView } from '@tidemark/shared';
 import { totpCode } from '../../../server/auth/totp';
 import { FIXTURE_STANDARDS, addCycle, addStandard, auditBody, createAudit, defaultScheduleId, storeFingerprint } from '../support/audit-fixtures';
-import { createCase, daysAgo, expectStatus, visitBody, type ClinicalWorld } from '../support/clinical-fixtures';
+import { createCase, createClinicalWorld, daysAgo, expectStatus, visitBody, type ClinicalWorld } from '../support/clinical-fixtures';
 import { ApiClient, cookieFrom, demoEmail } from '../support/test-app';
 import type { ApiMethod } from '../support/route-inventory';
 import type { Actor } from './route-access-table';
@@ -242,3 +242,19 @@ export async function databaseFingerprint(world: ClinicalWorld): Promise<Record<
   return fingerprint;
 }
 
+
+/** A clinical world with its route-call context and shared targets built: what a sweep over every route starts from. */
+export async function openRouteSweep(): Promise<{ world: ClinicalWorld; context: RouteCallContext }> {
+  const world = await createClinicalWorld();
+  const context = new RouteCallContext(world);
+  await context.targets();
+  return { world, context };
+}
+
+/** Waits for the background export and import jobs a sweep started, then closes its world. */
+export async function closeRouteSweep(world: ClinicalWorld | undefined): Promise<void> {
+  if (!world) return;
+  await world.t.exports.idle();
+  await world.t.imports.idle();
+  await world.close();
+}

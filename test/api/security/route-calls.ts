@@ -42,6 +42,22 @@ export const ROUTE_CALLS: Readonly<Record<string, Prepare>> = {
     const member = await context.member(actor);
     return { url: '/api/auth/password', body: { currentPassword: member.password, newPassword: `matrix-new-passphrase-${context.next()}` }, client: member.client };
   },
+  'GET /api/auth/sessions': async () => ({ url: '/api/auth/sessions' }),
+  'POST /api/auth/sessions/end-others': async (context, actor) => {
+    // A member of their own, so that no shared client of the matrix is signed out.
+    if (actor === 'anonymous') return { url: '/api/auth/sessions/end-others', client: new ApiClient(context.world.t.app) };
+    return { url: '/api/auth/sessions/end-others', client: (await context.member(actor)).client };
+  },
+  'DELETE /api/auth/sessions/:id': async (context, actor) => {
+    if (actor === 'anonymous') return { url: '/api/auth/sessions/AAAAAAAAAAAAAAAAAAAAAA', client: new ApiClient(context.world.t.app) };
+    // A member with a second session, which the first one ends.
+    const member = await context.member(actor);
+    expectStatus(await new ApiClient(context.world.t.app).signIn(member.email, member.password), 200);
+    const listed = expectStatus(await member.client.get('/api/auth/sessions'), 200).body as Array<{ id: string; isCurrent: boolean }>;
+    const other = listed.find((session) => !session.isCurrent);
+    if (!other) throw new Error('The member has no second session to end.');
+    return { url: `/api/auth/sessions/${other.id}`, client: member.client };
+  },
   'GET /api/auth/second-factor': async () => ({ url: '/api/auth/second-factor' }),
   'POST /api/auth/second-factor/enrolment': async (context, actor) => ({
     url: '/api/auth/second-factor/enrolment',
@@ -86,6 +102,7 @@ export const ROUTE_CALLS: Readonly<Record<string, Prepare>> = {
     return { url: `/api/users/${created.body.id}`, body: { displayName: `Renamed member ${n}` } };
   },
   'DELETE /api/users/:id/second-factor': async (context) => ({ url: `/api/users/${(await context.memberWithCodes('clinician')).id}/second-factor` }),
+  'DELETE /api/users/:id/sessions': async (context) => ({ url: `/api/users/${(await context.member('clinician')).id}/sessions` }),
   'GET /api/operators': async () => ({ url: '/api/operators' }),
 
   'GET /api/patients': async () => ({ url: '/api/patients' }),

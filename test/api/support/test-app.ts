@@ -5,6 +5,7 @@ import type { Express } from 'express';
 import request, { type Response } from 'supertest';
 import type TestAgent from 'supertest/lib/agent';
 import type { DataSource } from 'typeorm';
+import type { DestinationStream } from 'pino';
 import type { Role, SecondFactorPolicy } from '@tidemark/shared';
 import { createApp, type TidemarkApp } from '../../../server/app';
 import nodemailer, { type Transporter } from 'nodemailer';
@@ -29,7 +30,7 @@ export interface TestApp extends TidemarkApp {
 }
 
 /** Builds the app on a fresh migrated database (a temporary SQLite file, or PostgreSQL under TIDEMARK_TEST_PG_URL) with the demo accounts. */
-export async function createTestApp(options: { loginLimits?: LoginLimits; passwordChangeLimits?: PasswordChangeLimits; trustProxy?: boolean; mailTransport?: Transporter; photoStorage?: PhotoStorage; secondFactor?: SecondFactorPolicy; clock?: () => number; installation?: InstallationFacts } = {}): Promise<TestApp> {
+export async function createTestApp(options: { loginLimits?: LoginLimits; passwordChangeLimits?: PasswordChangeLimits; trustProxy?: boolean; mailTransport?: Transporter; photoStorage?: PhotoStorage; secondFactor?: SecondFactorPolicy; clock?: () => number; installation?: InstallationFacts; log?: { level: string; destination: DestinationStream } } = {}): Promise<TestApp> {
   const dataDir = mkdtempSync(path.join(tmpdir(), 'tidemark-test-'));
   const database = await openTestDatabase(dataDir);
   const dataSource = database.dataSource;
@@ -44,7 +45,9 @@ export async function createTestApp(options: { loginLimits?: LoginLimits; passwo
     scryptCost: TEST_SCRYPT_COST,
     loginLimits: options.loginLimits ?? { perAccount: 1000, perAddress: 1000, windowMs: 60_000 },
     passwordChangeLimits: options.passwordChangeLimits ?? { perMember: 1000, windowMs: 60_000 },
-    logLevel: 'silent',
+    // Silent unless a test reads the log lines (test/api/security/security-log.api.spec.ts).
+    logLevel: options.log?.level ?? 'silent',
+    logDestination: options.log?.destination,
     trustProxy: options.trustProxy,
     // Most suites sign in as admin or audit lead with a password only; second-factor tests pass 'required'.
     secondFactor: options.secondFactor ?? 'offered',

@@ -49,6 +49,24 @@ export const ACCOUNT_ROUTES: readonly FuzzRoute[] = [
       }).map((body) => ({ body })),
   },
   {
+    // Ends the member's other sessions: no input, so only the parser, the actor and the CSRF token can make it invalid.
+    method: 'POST',
+    path: '/api/auth/sessions/end-others',
+    group: 'auth',
+    body: 'none',
+    actor: 'admin',
+    refusedActors: ['anonymous'],
+  },
+  {
+    // Handles are 22 base64url characters; the path's own ":id" is not one (400), and nothing here names a live session.
+    method: 'DELETE',
+    path: '/api/auth/sessions/:id',
+    group: 'auth',
+    body: 'none',
+    actor: 'admin',
+    refusedActors: ['anonymous'],
+  },
+  {
     method: 'POST',
     path: '/api/auth/second-factor/verify',
     group: 'auth',
@@ -106,6 +124,17 @@ export const ACCOUNT_ROUTES: readonly FuzzRoute[] = [
     validBody: () => ({ displayName: 'Dr Sam Second (renamed)' }),
     // The administrator deactivating their own account: 409.
     refused: (ids) => hostileText(120).map((displayName) => ({ id: ids.users.admin, body: { active: false, displayName } })),
+  },
+  {
+    method: 'DELETE',
+    path: '/api/users/:id/sessions',
+    group: 'team',
+    body: 'none',
+    actor: 'admin',
+    refusedActors: ['anonymous', 'clinician', 'audit_lead'],
+    existingId: (ids) => ids.users.other,
+    // Ending one's own sessions here is refused: 409.
+    refused: (ids) => fc.constant({ id: ids.users.admin }),
   },
   {
     method: 'DELETE',

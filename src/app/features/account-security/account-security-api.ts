@@ -1,8 +1,10 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type {
+  EndedSessions,
   EnrolmentConfirmation,
   OneTimeCodeRequest,
+  OwnSession,
   PasswordChange,
   PasswordChangeResult,
   RecoveryCodesResponse,
@@ -46,6 +48,21 @@ export class AccountSecurityApi {
   /** Changes the signed-in person's own password; their other sessions end. Errors show beside the fields. */
   changePassword(change: PasswordChange): Observable<PasswordChangeResult> {
     return this.http.post<PasswordChangeResult>('/api/auth/password', change, { context: showsOwnErrors() });
+  }
+
+  /** The signed-in person's live sessions, the most recently active first. */
+  sessions(): Observable<OwnSession[]> {
+    return this.http.get<OwnSession[]>('/api/auth/sessions');
+  }
+
+  /** Ends one of the person's other sessions. */
+  endSession(id: string): Observable<void> {
+    return this.http.delete<void>(`/api/auth/sessions/${encodeURIComponent(id)}`);
+  }
+
+  /** Ends every session of the person but this one. */
+  endOtherSessions(): Observable<EndedSessions> {
+    return this.http.post<EndedSessions>('/api/auth/sessions/end-others', null);
   }
 
   /** Switches codes off; needs a current code, refused where the role must keep them. */

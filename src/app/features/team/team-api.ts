@@ -1,6 +1,6 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import type { UserCreateRequest, UserUpdateRequest, UserView } from '@tidemark/shared';
+import type { EndedSessions, UserCreateRequest, UserUpdateRequest, UserView } from '@tidemark/shared';
 import { Observable } from 'rxjs';
 import { showsOwnErrors } from '../../core/http/shows-own-errors';
 
@@ -46,5 +46,10 @@ export class TeamApi {
    */
   resetSecondFactor(id: number): Observable<void> {
     return this.http.delete<void>(`/api/users/${encodeURIComponent(id)}/second-factor`);
+  }
+
+  /** Signs a member out on every device (a lost or shared device); password and codes stay. Not for oneself (409). */
+  endSessions(id: number): Observable<EndedSessions> {
+    return this.http.delete<EndedSessions>(`/api/users/${encodeURIComponent(id)}/sessions`);
   }
 }

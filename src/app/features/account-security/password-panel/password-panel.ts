@@ -1,5 +1,5 @@
 import { HttpErrorResponse } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, inject, output, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule, type FormGroupDirective } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -43,7 +43,7 @@ export function passwordChangedSentence(result: PasswordChangeResult): string {
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, VisibilityToggle, PasswordRules],
   templateUrl: './password-panel.html',
-  styleUrl: './password-panel.scss',
+  styleUrls: ['../account-panel.scss', './password-panel.scss'],
 })
 export class PasswordPanel {
   private readonly api = inject(AccountSecurityApi);
@@ -63,6 +63,8 @@ export class PasswordPanel {
   /** A failure that belongs to no field. */
   protected readonly failure = signal<string | null>(null);
   protected readonly outcome = signal<string | null>(null);
+  /** The server took the new password (and ended the person's other sessions). */
+  readonly changed = output<PasswordChangeResult>();
 
   constructor() {
     // The repeat field's check reads the new password: look again whenever that changes.
@@ -98,6 +100,7 @@ export class PasswordPanel {
           formDirective.resetForm();
           this.isPasswordVisible.set(false);
           this.outcome.set(passwordChangedSentence(result));
+          this.changed.emit(result);
         },
         error: (error: unknown) => {
           this.isSaving.set(false);

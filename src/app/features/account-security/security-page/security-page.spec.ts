@@ -42,6 +42,11 @@ describe('SecurityPage', () => {
     documentLoader = TestbedHarnessEnvironment.documentRootLoader(fixture);
     http.expectOne('/api/auth/second-factor').flush(status);
     await fixture.whenStable();
+    // The sessions panel reads its list, except while codes must first be set up.
+    if (secondFactor !== 'enrolment-required') {
+      http.expectOne('/api/auth/sessions').flush([]);
+      await fixture.whenStable();
+    }
   }
 
   afterEach(() => http.verify());
@@ -65,8 +70,10 @@ describe('SecurityPage', () => {
       expect(await button(/Set up one-time codes/)).toBeTruthy();
     });
 
-    it('keeps the password form away until codes are on (the server lets nothing else through before)', () => {
+    it('keeps the password form and the sessions away until codes are on (the server lets nothing else through before)', () => {
       expect(fixture.nativeElement.querySelector('tm-password-panel')).toBeNull();
+      expect(fixture.nativeElement.querySelector('tm-sessions-panel')).toBeNull();
+      http.expectNone('/api/auth/sessions');
     });
 
     it('shows the QR code, the key in groups of four and asks for the first code', async () => {
@@ -108,6 +115,9 @@ describe('SecurityPage', () => {
       expect(listed).toEqual(CODES);
       expect(text()).toContain('This is the only time Tidemark shows them');
       expect(TestBed.inject(StubAuthSession).secondFactor()).toBe('verified');
+      // Codes are on: the rest of the page (password, sessions) opens and reads the sessions.
+      http.expectOne('/api/auth/sessions').flush([]);
+      await fixture.whenStable();
 
       await (await button('I have kept them safe')).click();
       expect(fixture.nativeElement.querySelector('tm-recovery-codes-panel')).toBeNull();

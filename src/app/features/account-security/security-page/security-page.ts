@@ -21,19 +21,21 @@ import { CodePromptDialog, type CodePromptData } from '../code-prompt-dialog/cod
 import { EnrolmentPanel } from '../enrolment-panel/enrolment-panel';
 import { PasswordPanel } from '../password-panel/password-panel';
 import { RecoveryCodesPanel } from '../recovery-codes-panel/recovery-codes-panel';
+import { SessionsPanel } from '../sessions-panel/sessions-panel';
 import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 
 /**
  * Sign-in protection: whether one-time codes are on, setting them up (QR code, key, first
- * code), recovery codes shown once, new recovery codes, switching codes off, and changing
- * one's own password (not while codes must first be set up: the server lets nothing else through).
+ * code), recovery codes shown once, new recovery codes, switching codes off, changing one's own
+ * password and seeing or ending one's own sessions (the last two not while codes must first be
+ * set up: the server lets nothing else through).
  */
 @Component({
   selector: 'tm-security-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [LocalDatePipe, MatButtonModule, MatIconModule, MatProgressBarModule, EnrolmentPanel, PasswordPanel, RecoveryCodesPanel],
+  imports: [LocalDatePipe, MatButtonModule, MatIconModule, MatProgressBarModule, EnrolmentPanel, PasswordPanel, RecoveryCodesPanel, SessionsPanel],
   templateUrl: './security-page.html',
-  styleUrl: './security-page.scss',
+  styleUrls: ['../account-panel.scss', './security-page.scss'],
 })
 export class SecurityPage {
   private readonly api = inject(AccountSecurityApi);

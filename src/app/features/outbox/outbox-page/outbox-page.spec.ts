@@ -13,7 +13,7 @@ function entry(overrides: Partial<OutboxEntry>): OutboxEntry {
   return {
     id: 1,
     kind: 'governance-pack',
-    to: 'committee@harbour.test',
+    to: 'committee@example.org',
     subject: 'Tidemark: governance pack ready — Spec audit',
     body: 'Dear Kit,\n\nSign in to download it: http://localhost/reports',
     status: 'sent',
@@ -27,8 +27,8 @@ function entry(overrides: Partial<OutboxEntry>): OutboxEntry {
 }
 
 const MESSAGES: OutboxEntry[] = [
-  entry({ id: 3, kind: 'recall-digest', to: 'wren@harbour.test', subject: 'Tidemark: 2 recalls in their window, 0 overdue', status: 'failed', attempts: 5, lastError: 'Connection refused', sentAt: null }),
-  entry({ id: 2, kind: 'action-reminder', to: 'aiko@harbour.test', subject: 'Tidemark: action due on 2026-03-10', status: 'queued', attempts: 2, lastError: 'Greeting never received', nextAttemptAt: '2026-03-02T10:20:00.000Z', sentAt: null }),
+  entry({ id: 3, kind: 'recall-digest', to: 'wren@example.org', subject: 'Tidemark: 2 recalls in their window, 0 overdue', status: 'failed', attempts: 5, lastError: 'Connection refused', sentAt: null }),
+  entry({ id: 2, kind: 'action-reminder', to: 'aiko@example.org', subject: 'Tidemark: action due on 2026-03-10', status: 'queued', attempts: 2, lastError: 'Greeting never received', nextAttemptAt: '2026-03-02T10:20:00.000Z', sentAt: null }),
   entry({ id: 1 }),
 ];
 
@@ -75,7 +75,7 @@ describe('OutboxPage', () => {
   it('offers Retry only for messages not yet sent, and retries the chosen one', async () => {
     const retries = await loader.getAllHarnesses(MatButtonHarness.with({ text: /Retry$/ }));
     expect(retries).toHaveLength(2);
-    await (await loader.getHarness(MatButtonHarness.with({ selector: '[aria-label="Retry the message to wren@harbour.test"]' }))).click();
+    await (await loader.getHarness(MatButtonHarness.with({ selector: '[aria-label="Retry the message to wren@example.org"]' }))).click();
 
     const request = http.expectOne('/api/outbox/3/retry');
     expect(request.request.method).toBe('POST');
@@ -84,7 +84,7 @@ describe('OutboxPage', () => {
     await fixture.whenStable();
 
     expect((await column('status'))[0]).toBe('mark_email_readSent');
-    expect(element().querySelector('[role="status"]')?.textContent).toContain('The message to wren@harbour.test was sent.');
+    expect(element().querySelector('[role="status"]')?.textContent).toContain('The message to wren@example.org was sent.');
   });
 
   it('opens a message to show its body', async () => {
@@ -97,7 +97,7 @@ describe('OutboxPage', () => {
     expect(subject?.getAttribute('aria-pressed')).toBe('true');
     const detail = element().querySelector('tm-message-detail');
     expect(detail?.querySelector('pre')?.textContent).toBe('Dear Kit,\n\nSign in to download it: http://localhost/reports');
-    expect(detail?.textContent).toContain('committee@harbour.test');
+    expect(detail?.textContent).toContain('committee@example.org');
     // A sent message cannot be sent again.
     expect(detail?.textContent).not.toContain('Retry now');
   });

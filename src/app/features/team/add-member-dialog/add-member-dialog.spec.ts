@@ -50,7 +50,7 @@ describe('AddMemberDialog', () => {
     expect(await (await field('Initial password')).getTextHints()).toEqual([
       `At least ${PASSWORD_MIN_LENGTH} characters. Share it with them privately.`,
     ]);
-    await fill({ name: 'Noor Aziz', email: 'noor@harbour.test', password: 'short' });
+    await fill({ name: 'Noor Aziz', email: 'noor@example.org', password: 'short' });
     await submit();
     expect(await (await field('Initial password')).getTextErrors()).toEqual([
       `Use at least ${PASSWORD_MIN_LENGTH} characters.`,
@@ -67,22 +67,22 @@ describe('AddMemberDialog', () => {
   });
 
   it('creates the member with the chosen role and closes with it', async () => {
-    await fill({ name: 'Noor Aziz', email: 'noor@harbour.test', password: 'a sufficiently long one', role: 'Partner' });
+    await fill({ name: 'Noor Aziz', email: 'noor@example.org', password: 'a sufficiently long one', role: 'Partner' });
     await submit();
     const request = http.expectOne('/api/users');
     expect(request.request.body).toEqual({
       displayName: 'Noor Aziz',
-      email: 'noor@harbour.test',
+      email: 'noor@example.org',
       role: 'partner',
       password: 'a sufficiently long one',
     });
-    const created = { id: 9, email: 'noor@harbour.test', displayName: 'Noor Aziz', role: 'partner', active: true, createdAt: '2026-03-01T00:00:00Z', lastSignInAt: null };
+    const created = { id: 9, email: 'noor@example.org', displayName: 'Noor Aziz', role: 'partner', active: true, createdAt: '2026-03-01T00:00:00Z', lastSignInAt: null };
     request.flush(created, { status: 201, statusText: 'Created' });
     expect(close).toHaveBeenCalledWith(created);
   });
 
   it("shows the server's field errors under their fields", async () => {
-    await fill({ name: 'Noor Aziz', email: 'noor@harbour.test', password: 'password1234' });
+    await fill({ name: 'Noor Aziz', email: 'noor@example.org', password: 'password1234' });
     await submit();
     http.expectOne('/api/users').flush(
       { error: { code: 'validation', message: 'Check the fields.', fields: { password: 'That password is too common.' } } },
@@ -94,7 +94,7 @@ describe('AddMemberDialog', () => {
   });
 
   it('shows a taken e-mail address on the e-mail field', async () => {
-    await fill({ name: 'Noor Aziz', email: 'ines@harbour.test', password: 'a sufficiently long one' });
+    await fill({ name: 'Noor Aziz', email: 'ines@example.org', password: 'a sufficiently long one' });
     await submit();
     http
       .expectOne('/api/users')

@@ -16,7 +16,7 @@ import { TeamPage } from './team-page';
 const TEAM: UserView[] = [
   {
     id: 1,
-    email: 'ines@harbour.test',
+    email: 'ines@example.org',
     displayName: 'Ines Okafor',
     role: 'admin',
     active: true,
@@ -26,7 +26,7 @@ const TEAM: UserView[] = [
   },
   {
     id: 2,
-    email: 'bram@harbour.test',
+    email: 'bram@example.org',
     displayName: 'Bram Lind',
     role: 'clinician',
     active: false,
@@ -36,7 +36,7 @@ const TEAM: UserView[] = [
   },
   {
     id: 3,
-    email: 'aiko@harbour.test',
+    email: 'aiko@example.org',
     displayName: 'Aiko Sato',
     role: 'audit_lead',
     active: true,
@@ -178,6 +178,23 @@ describe('TeamPage', () => {
     await fixture.whenStable();
     http.expectNone('/api/users/3/second-factor');
     expect((await column('protection'))[0]).toContain('Codes on');
+  });
+
+  it('signs another member out everywhere after a confirmation, and says how many sessions ended', async () => {
+    expect((await menuItems('Ines Okafor')).some((item) => item.includes('Sign out everywhere'))).toBe(false);
+    await (await rowMenu('Aiko Sato')).clickItem({ text: /Sign out everywhere/ });
+    const dialog = await documentLoader.getHarness(MatDialogHarness);
+    expect(await dialog.getTitleText()).toContain('Sign Aiko Sato out everywhere?');
+    expect(await dialog.getContentText()).toContain('password and one-time codes stay');
+    http.expectNone('/api/users/3/sessions');
+
+    await (await dialog.getHarness(MatButtonHarness.with({ text: 'Sign out everywhere' }))).click();
+    await fixture.whenStable();
+    const request = http.expectOne('/api/users/3/sessions');
+    expect(request.request.method).toBe('DELETE');
+    request.flush({ endedSessions: 2 });
+    await fixture.whenStable();
+    expect(document.body.textContent).toContain('Aiko Sato was signed out of 2 sessions.');
   });
 
   it('renames a member through the rename dialog and shows the new name in the list', async () => {

@@ -182,14 +182,37 @@ export class TeamPage {
       confirmLabel: 'Reset sign-in protection',
       icon: 'phonelink_erase',
     };
-    this.dialog
-      .open<ConfirmDialog, ConfirmDialogData, boolean>(ConfirmDialog, { data, maxWidth: '560px' })
-      .afterClosed()
-      .pipe(
-        filter((confirmed) => confirmed === true),
-        takeUntilDestroyed(this.destroyRef),
-      )
-      .subscribe(() => this.resetSecondFactor(member));
+    this.afterConfirmation(data, () => this.resetSecondFactor(member));
+  }
+
+  /** A lost or shared device: after confirmation, signs the member out on every device; password and codes stay. */
+  protected confirmEndSessions(member: UserView): void {
+    const data: ConfirmDialogData = {
+      title: `Sign ${member.displayName} out everywhere?`,
+      paragraphs: [
+        `Every open session of ${member.displayName} ends at once, on every computer, tablet and phone. Unsaved entries in those sessions are lost.`,
+        'Their password and one-time codes stay as they are, so they can sign in again straight away. If someone else may know the password, set a new one as well.',
+      ],
+      confirmLabel: 'Sign out everywhere',
+      icon: 'devices_off',
+    };
+    this.afterConfirmation(data, () => this.endSessions(member));
+  }
+
+  private endSessions(member: UserView): void {
+    this.savingMemberId.set(member.id);
+    this.teamApi
+      .endSessions(member.id)
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({
+        next: ({ endedSessions }) => {
+          this.savingMemberId.set(null);
+          const ended = endedSessions === 0 ? 'had no open sessions' : `was signed out of ${endedSessions} ${endedSessions === 1 ? 'session' : 'sessions'}`;
+          this.snackBar.open(`${member.displayName} ${ended}.`, 'OK', { duration: 8000 });
+        },
+        // The error notice says why.
+        error: () => this.savingMemberId.set(null),
+      });
   }
 
   private resetSecondFactor(member: UserView): void {
@@ -206,6 +229,18 @@ export class TeamPage {
         // The error notice says why; the row is unchanged.
         error: () => this.savingMemberId.set(null),
       });
+  }
+
+  /** Opens the confirmation and runs `action` only if the administrator confirms. */
+  private afterConfirmation(data: ConfirmDialogData, action: () => void): void {
+    this.dialog
+      .open<ConfirmDialog, ConfirmDialogData, boolean>(ConfirmDialog, { data, maxWidth: '560px' })
+      .afterClosed()
+      .pipe(
+        filter((confirmed) => confirmed === true),
+        takeUntilDestroyed(this.destroyRef),
+      )
+      .subscribe(action);
   }
 
   private replaceMember(updated: UserView): void {
