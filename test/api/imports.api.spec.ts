@@ -10,48 +10,13 @@ import type { CaseDetail, CaseListPage, ImportColumn, ImportIssue, ImportJobView
 import { IMPORT_COLUMNS, IMPORT_MAX_BYTES } from '@tidemark/shared';
 import { sqliteConnection } from '../../server/import/sqlite-connection';
 import { CLINICAL_TABLES, clinicalFingerprint, createClinicalWorld, daysAgo, expectStatus, type ClinicalWorld } from './support/clinical-fixtures';
+import { importRow, type ImportCells } from './support/import-fixtures';
 import { demoEmail, type ApiClient } from './support/test-app';
 
 /*
  * Historical import through the API. Files are built here, row by row, in the template's long
  * format (one row per site per visit). Expected counts are worked out from the rows by hand.
  */
-
-type ImportCells = Record<ImportColumn, string | number | Date | null>;
-
-/** A valid row: patient IM-0001, a thin never-smoker, case of 10 January 2024 by the demo clinician, tooth 11 at 6 weeks. */
-function importRow(overrides: Partial<ImportCells> = {}): ImportCells {
-  return {
-    patient_code: 'IM-0001',
-    birth_year: 1975,
-    sex: 'female',
-    smoking: 'never',
-    cigarettes_per_day: null,
-    diabetes: 'none',
-    phenotype: 'thin',
-    phenotype_method: 'probe-visibility',
-    operator_email: demoEmail('clinician'),
-    surgery_date: '2024-01-10',
-    procedure: 'gingivectomy',
-    indication: 'aesthetic',
-    instrument: 'scalpel',
-    tooth: 11,
-    site_location: 'mid-facial',
-    reference_point: 'incisal-edge',
-    baseline_ref_gm: 8,
-    post_op_ref_gm: 10,
-    kt_width: 5,
-    margin_to_crest: 4,
-    baseline_papilla: null,
-    interval_key: '6w',
-    visit_date: '2024-02-21',
-    recall_ref_gm: 9.5,
-    recall_papilla: null,
-    bleeding_on_probing: 'no',
-    pain: 1,
-    ...overrides,
-  };
-}
 
 function csvCell(value: string | number | Date | null): string {
   if (value === null) return '';
