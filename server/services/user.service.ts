@@ -3,6 +3,7 @@ import type { PasswordChange, Role, UserView } from '@tidemark/shared';
 import { z } from 'zod';
 import { userCreateSchema, userUpdateSchema } from '@tidemark/shared';
 import { isCommonPassword } from '../auth/common-passwords';
+import { isMadeOfContextWords } from '../auth/context-words';
 import { hashPassword, verifyPassword, type ScryptCost } from '../auth/password';
 import type { DatabaseSessionStore } from '../auth/session-store';
 import { UserSecondFactor } from '../entities/user-second-factor.entity';
@@ -133,7 +134,7 @@ export class UserService {
   }
 
   async create(input: UserCreate): Promise<UserView> {
-    this.assertNotCommon(input.password);
+    this.assertNotGuessable(input.password, [input.displayName, input.email]);
     if (await this.users.existsBy({ email: input.email })) {
       throw HttpError.conflict('Someone with this e-mail address is already on the team.');
     }
@@ -152,7 +153,7 @@ export class UserService {
   async update(id: number, change: UserUpdate, actingUserId: number): Promise<UserView> {
     const user = await this.users.findOneBy({ id });
     if (!user) throw HttpError.notFound('The team member');
-    if (change.password !== undefined) this.assertNotCommon(change.password);
+    if (change.password !== undefined) this.assertNotGuessable(change.password, [change.displayName ?? user.displayName, user.email]);
     const isLosingAdmin = user.role === 'admin' && user.active && (change.active === false || (change.role !== undefined && change.role !== 'admin'));
     if (isLosingAdmin && (await this.users.countBy({ role: 'admin', active: true })) <= 1) {
       throw HttpError.conflict('This would leave the practice without an active administrator.');
@@ -185,7 +186,7 @@ export class UserService {
     if (!(await verifyPassword(change.currentPassword, user.passwordHash))) {
       throw HttpError.badRequest('Your current password is not right.', { currentPassword: 'This is not your current password.' });
     }
-    this.assertNotCommon(change.newPassword, 'newPassword');
+    this.assertNotGuessable(change.newPassword, [user.displayName, user.email], 'newPassword');
     await this.users.update({ id: userId }, { passwordHash: await hashPassword(change.newPassword, this.scryptCost) });
     const endedSessions = await this.sessions.destroyForUserExcept(userId, keepSid);
     return { user, endedSessions };
@@ -225,9 +226,18 @@ export class UserService {
     return this.factors.existsBy({ userId, enabledAt: Not(IsNull()) });
   }
 
-  private assertNotCommon(password: string, field = 'password'): void {
+  /**
+   * Refuses a password on the common-password list (ASVS 5.0 §6.2.4) or made only of context
+   * words — Tidemark, the roles, the trade's words, the member's own name and e-mail (§6.2.11).
+   */
+  private assertNotGuessable(password: string, personalWords: readonly string[], field = 'password'): void {
     if (isCommonPassword(password)) {
       throw HttpError.badRequest('Choose a less common password.', { [field]: 'This password is on a list of common passwords. Choose another.' });
+    }
+    if (isMadeOfContextWords(password, personalWords)) {
+      throw HttpError.badRequest('Choose a harder password to guess.', {
+        [field]: 'This password is made only of words anyone would try here (Tidemark, the trade, the person’s name). Add words of your own.',
+      });
     }
   }
 }

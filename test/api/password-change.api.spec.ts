@@ -89,6 +89,8 @@ describe('POST /api/auth/password: changing one’s own password', () => {
     ['the same password again', { currentPassword: DEMO_PASSWORD, newPassword: DEMO_PASSWORD }, 'newPassword', /different from the current/],
     ['a common password (zxcvbn-ts common-password list, ASVS 6.2.4)', { currentPassword: DEMO_PASSWORD, newPassword: 'password1234' }, 'newPassword', /common passwords/],
     ['no current password', { newPassword: NEW_PASSWORD }, 'currentPassword', /Enter your current password/],
+    ['a password of context words only (ASVS 6.2.11, server/auth/context-words.ts)', { currentPassword: DEMO_PASSWORD, newPassword: 'Gingiva-Crown-Tidemark-2026' }, 'newPassword', /words anyone would try here/],
+    ['a password of the member’s own name and e-mail only', { currentPassword: DEMO_PASSWORD, newPassword: 'lead-example-org-2026!' }, 'newPassword', /words anyone would try here/],
   ])('refuses %s with a field error and changes nothing', async (_label, body, field, message) => {
     const email = demoEmail('audit_lead');
     const before = await passwordHashOf(t, email);

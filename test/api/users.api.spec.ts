@@ -89,12 +89,12 @@ describe('/api/users behaviour', () => {
   });
 
   it('creates a user, stores the e-mail lower-cased and the hash with its scrypt parameters', async () => {
-    const response = await admin.post('/api/users', { email: 'New.Hygienist@Example.org', displayName: 'New hygienist', role: 'clinician', password: 'gingival-margin-2026' });
+    const response = await admin.post('/api/users', { email: 'New.Hygienist@Example.org', displayName: 'New hygienist', role: 'clinician', password: 'gingival-margin-lighthouse' });
     expect(response.status).toBe(201);
     expect(response.body.email).toBe('new.hygienist@example.org');
     const row = await t.dataSource.getRepository(User).findOneByOrFail({ id: response.body.id });
     expect(row.passwordHash).toMatch(/^scrypt\$1024\$8\$1\$[A-Za-z0-9+/=]+\$[A-Za-z0-9+/=]+$/);
-    const signIn = await new ApiClient(t.app).signIn('new.hygienist@example.org', 'gingival-margin-2026');
+    const signIn = await new ApiClient(t.app).signIn('new.hygienist@example.org', 'gingival-margin-lighthouse');
     expect(signIn.status).toBe(200);
   });
 
@@ -113,6 +113,17 @@ describe('/api/users behaviour', () => {
     expect(response.body.error.code).toBe('validation');
     expect(Object.keys(response.body.error.fields).sort()).toEqual(['displayName', 'email', 'password', 'role']);
     expect(await t.dataSource.getRepository(User).count()).toBe(count);
+  });
+
+  it('refuses a password made only of Tidemark’s context words or the new member’s name (ASVS 5.0 6.2.11)', async () => {
+    for (const password of ['Tidemark-Periodontal-2026', 'Wren Hollis Wren Hollis 1']) {
+      const response = await admin.post('/api/users', { email: 'wren.hollis@example.org', displayName: 'Wren Hollis', role: 'partner', password });
+      expect(response.status).toBe(400);
+      expect(response.body.error.fields.password).toMatch(/words anyone would try here/);
+    }
+    expect(await t.dataSource.getRepository(User).existsBy({ email: 'wren.hollis@example.org' })).toBe(false);
+    // Another word of one's own makes it fine.
+    expect((await admin.post('/api/users', { email: 'wren.hollis@example.org', displayName: 'Wren Hollis', role: 'partner', password: 'Tidemark-Periodontal-lantern' })).status).toBe(201);
   });
 
   it('refuses a common password (zxcvbn-ts common-password list)', async () => {

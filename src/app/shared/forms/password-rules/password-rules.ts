@@ -3,7 +3,8 @@ import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from '@tidemark/shared';
 
 /**
  * The rules a new password meets, in the words of `shared/schemas/user.ts` (length) and the
- * server's common-password check. Give the host an `id` and point the field's
+ * server's common-password and context-word checks (server/auth/common-passwords.ts,
+ * server/auth/context-words.ts). Give the host an `id` and point the field's
  * `aria-describedby` at it.
  */
 @Component({
@@ -13,6 +14,7 @@ import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from '@tidemark/shared';
     <ul class="rules">
       <li>At least {{ minLength }} characters, at most {{ maxLength }}. A few unrelated words make a strong one.</li>
       <li>Passwords on a list of commonly used ones are refused.</li>
+      <li>So are passwords made only of words anyone would try here: Tidemark, the trade’s words, the person’s name.</li>
     </ul>
   `,
   styles: `
