@@ -3,7 +3,7 @@ import type { Locator, Page } from 'playwright-core';
 import { screenshotWholePage } from '../support/whole-page-screenshot';
 import { DEMO_ACCOUNTS, signIn } from '../support/sign-in';
 import { generateClinicalPhoto } from './support/clinical-photo';
-import { focused, pressAndLook, pressUntilFocused } from './support/keyboard-focus';
+import { enterForFileChooser, focused, pressAndLook, pressUntilFocused } from './support/keyboard-focus';
 import { watchProblems } from '../support/page-problems';
 import { newJourneyContext, pictureOnFailure, type JourneyWorld } from './support/journey-kit';
 import { progressSeen, recordProgress, throttleUploads } from './support/upload-progress';
@@ -144,9 +144,7 @@ export async function clinicianKeyboardJourney(world: JourneyWorld): Promise<voi
 
     // Step 8: "Choose photograph" opens the system file picker from the keyboard; the generated photo is picked there.
     await pressUntilFocused(page, 'Tab', /Choose photograph/, 5);
-    const chooser = page.waitForEvent('filechooser');
-    await page.keyboard.press('Enter');
-    await (await chooser).setFiles(photo.path);
+    await (await enterForFileChooser(page)).setFiles(photo.path);
     await page.getByText('upper-front-recall.jpg').waitFor();
     expect(await pressAndLook(page, 'Tab')).toEqual(expect.objectContaining({ name: 'Upload' }));
 

@@ -1,4 +1,4 @@
-import type { Page } from 'playwright-core';
+import type { FileChooser, Page } from 'playwright-core';
 
 /** Where keyboard focus is, as a person using a screen reader would hear it. */
 export interface FocusedElement {
@@ -57,4 +57,22 @@ export async function pressUntilFocused(page: Page, key: 'Tab' | 'Shift+Tab', ta
 export async function pressAndLook(page: Page, key: string): Promise<FocusedElement> {
   await page.keyboard.press(key);
   return focused(page);
+}
+
+/**
+ * Presses Enter on the focused "choose a file" control and returns the file chooser it opens.
+ * On a loaded machine the first press can reach the page before Chromium intercepts file
+ * choosers, and the picker is then dropped unseen; the control keeps focus, so the press is
+ * repeated (at most `attempts` times, `waitMs` each).
+ */
+export async function enterForFileChooser(page: Page, attempts = 3, waitMs = 10_000): Promise<FileChooser> {
+  for (let attempt = 1; ; attempt++) {
+    const chooser = page.waitForEvent('filechooser', { timeout: waitMs });
+    await page.keyboard.press('Enter');
+    try {
+      return await chooser;
+    } catch (error) {
+      if (attempt >= attempts) throw error;
+    }
+  }
 }
