@@ -41,6 +41,8 @@ async function main(): Promise<void> {
     clientDir: config.clientDir,
     logLevel: config.logLevel,
     trustProxy: config.trustProxy,
+    // Reached over HTTPS only: __Host- cookies, always Secure (server/auth/cookie-names.ts).
+    isHttpsOnly: config.appUrl?.startsWith('https://') ?? false,
     // The demo accounts in the README must keep working without an authenticator app.
     secondFactor: config.isDemo ? 'offered' : 'required',
     // For the administrator's Settings page: kinds and places only; it never reports the SMTP password.
@@ -52,6 +54,9 @@ async function main(): Promise<void> {
       mail: standIn ? { kind: 'stand-in' } : { kind: 'smtp', host: smtp.host ?? '127.0.0.1', port: smtp.port, secure: smtp.secure, user: smtp.user, password: smtp.password },
     },
   });
+  if (config.appUrl?.startsWith('https://') && config.trustProxy === undefined) {
+    console.warn('APP_URL is https://, so the cookies are Secure and __Host- prefixed: set TRUST_PROXY to the TLS proxy in front of Tidemark, or nobody can sign in.');
+  }
   if (config.isDemo && (await users.count()) === 0) {
     console.log('Empty database: seeding the demo practice (demo mode; set TIDEMARK_DEMO=off to skip).');
     const report = await seedDemo(dataSource, users, services);
@@ -67,7 +72,7 @@ async function main(): Promise<void> {
   mailTimer.unref();
   setTimeout(runMail, 5_000).unref();
   // The SQLite file only: a PostgreSQL server is backed up with its own tools.
-  const stopDailyBackups = config.databaseUrl ? () => undefined : startDailyBackups({ databaseFile: config.databaseFile, backupsDir: config.backupsDir, keep: config.dailyBackupsKept });
+  const stopDailyBackups = config.databaseUrl ? () => undefined : startDailyBackups({ databaseFile: config.databaseFile, backupsDir: config.backupsDir, keep: config.dailyBackupsKept, photoStorage: config.photoStorage });
   const server: Server = app.listen(port, () => {
     console.log(`Tidemark is listening on http://localhost:${port} (data in ${config.dataDir})`);
   });

@@ -1,5 +1,7 @@
 import { rmSync } from 'node:fs';
 import path from 'node:path';
+import type { PhotoStorageConfig } from '../storage/create-photo-storage';
+import { describePhotoBackup, photoFolderOf } from './backup-photos';
 import { backupDatabase, listBackups, type BackupResult } from './database-backup';
 
 const HOUR_MS = 60 * 60 * 1000;
@@ -12,6 +14,8 @@ export interface DailyBackupOptions {
   backupsDir: string;
   /** How many daily backups to keep (the newest). */
   keep: number;
+  /** Where photographs live; the uploads folder's are captured with each backup (see `backupDatabase`). */
+  photoStorage?: PhotoStorageConfig | null;
   /** How often to look whether a day has passed since the last one. */
   checkEveryMs?: number;
   /** Delay of the first look after start. */
@@ -22,15 +26,20 @@ export interface DailyBackupOptions {
 }
 
 /**
- * Deletes all but the newest `keep` backups of a folder (names as `backupDatabase` writes them;
- * other files are left alone).
+ * Deletes all but the newest `keep` backups of a folder, each with its photo folder (names as
+ * `backupDatabase` writes them; other files are left alone). The photo folder goes first: a crash
+ * in between leaves a database without photographs named as an old database-only backup would
+ * be, never a photo folder nobody lists.
  *
- * @returns the files deleted
+ * @returns the database files deleted
  */
 export function pruneBackups(folder: string, keep: number): string[] {
   const backups = listBackups(folder);
   const surplus = backups.slice(0, Math.max(0, backups.length - keep)).map((backup) => backup.file);
-  for (const file of surplus) rmSync(file, { force: true });
+  for (const file of surplus) {
+    rmSync(photoFolderOf(file), { recursive: true, force: true });
+    rmSync(file, { force: true });
+  }
   return surplus;
 }
 
@@ -46,7 +55,7 @@ export async function takeDailyBackupIfDue(options: DailyBackupOptions): Promise
   const now = options.now?.() ?? new Date();
   const newest = listBackups(folder).at(-1);
   if (newest && now.getTime() - newest.takenAt.getTime() < DAY_MS) return null;
-  const backup = await backupDatabase({ databaseFile: options.databaseFile, backupsDir: folder, at: now });
+  const backup = await backupDatabase({ databaseFile: options.databaseFile, backupsDir: folder, at: now, photoStorage: options.photoStorage });
   pruneBackups(folder, options.keep);
   return backup;
 }
@@ -67,7 +76,7 @@ export function startDailyBackups(options: DailyBackupOptions): () => void {
     isRunning = true;
     takeDailyBackupIfDue(options)
       .then((backup) => {
-        if (backup) log(`Daily backup written: ${backup.file} (${backup.bytes} bytes, integrity ok).`);
+        if (backup) log([`Daily backup written: ${backup.file} (${backup.bytes} bytes, integrity ok).`, ...describePhotoBackup(backup.photos)].join(' '));
       })
       .catch(logError)
       .finally(() => {

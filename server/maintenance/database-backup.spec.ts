@@ -1,4 +1,4 @@
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import Database from 'better-sqlite3';
@@ -27,12 +27,16 @@ describe('backup names and the backup itself', () => {
     expect(path.basename(nextBackupPath(folder, at))).toBe('tidemark-20261202T053000Z-2.sqlite');
     writeFileSync(path.join(folder, 'tidemark-20261202T053000Z-2.sqlite.partial'), '');
     expect(path.basename(nextBackupPath(folder, at))).toBe('tidemark-20261202T053000Z-3.sqlite');
+    // A photo folder left without its database (a crash between the two) keeps its name taken too.
+    mkdirSync(path.join(folder, 'tidemark-20261202T053000Z-3-photos'));
+    expect(path.basename(nextBackupPath(folder, at))).toBe('tidemark-20261202T053000Z-4.sqlite');
   });
 
   it('lists backups oldest first, same-second ones in order, other files ignored', () => {
     for (const name of ['tidemark-20261202T053000Z-2.sqlite', 'tidemark-20261201T230000Z.sqlite', 'tidemark-20261202T053000Z.sqlite', 'before-restore-20261101T000000Z.sqlite', 'notes.txt']) {
       writeFileSync(path.join(folder, name), '');
     }
+    mkdirSync(path.join(folder, 'tidemark-20261202T053000Z-photos'));
     expect(listBackups(folder).map((entry) => path.basename(entry.file))).toEqual(['tidemark-20261201T230000Z.sqlite', 'tidemark-20261202T053000Z.sqlite', 'tidemark-20261202T053000Z-2.sqlite']);
     expect(listBackups(folder)[0].takenAt.toISOString()).toBe('2026-12-01T23:00:00.000Z');
     expect(listBackups(path.join(folder, 'missing'))).toEqual([]);

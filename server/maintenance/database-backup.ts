@@ -1,6 +1,8 @@
 import { existsSync, mkdirSync, readdirSync, renameSync, rmSync, statSync } from 'node:fs';
 import path from 'node:path';
 import Database from 'better-sqlite3';
+import type { PhotoStorageConfig } from '../storage/create-photo-storage';
+import { backupPhotos, photoFolderOf, type PhotoBackup } from './backup-photos';
 
 /** A finished, verified backup. */
 export interface BackupResult {
@@ -8,8 +10,10 @@ export interface BackupResult {
   file: string;
   /** Its size on disk. */
   bytes: number;
-  /** Milliseconds the copy and its check took. */
+  /** Milliseconds the copy and its check took (the photographs included). */
   durationMs: number;
+  /** The photographs the database refers to: captured beside it, or why not. */
+  photos: PhotoBackup;
 }
 
 /** Names of backups made by {@link backupDatabase}: `tidemark-20261202T053000Z.sqlite` (`-2`, `-3` … within one second). */
@@ -32,12 +36,13 @@ export function backupStamp(at: Date): string {
   return at.toISOString().replace(/\.\d{3}Z$/, 'Z').replace(/[-:]/g, '');
 }
 
-/** `<backupsDir>/tidemark-<stamp>.sqlite`, with `-2`, `-3` … when a backup of the same second exists. */
+/** `<backupsDir>/tidemark-<stamp>.sqlite`, with `-2`, `-3` … when a backup of the same second (or its photo folder) exists. */
 export function nextBackupPath(backupsDir: string, at: Date, prefix = 'tidemark'): string {
   const stamp = backupStamp(at);
   for (let index = 1; ; index += 1) {
     const candidate = path.join(backupsDir, `${prefix}-${stamp}${index === 1 ? '' : `-${index}`}.sqlite`);
-    if (!existsSync(candidate) && !existsSync(`${candidate}.partial`)) return candidate;
+    const photos = photoFolderOf(candidate);
+    if (![candidate, `${candidate}.partial`, photos, `${photos}.partial`].some((taken) => existsSync(taken))) return candidate;
   }
 }
 
@@ -54,10 +59,12 @@ export function integrityOf(db: Database.Database): string {
  * opens anywhere without -wal/-shm companions), checked with `PRAGMA integrity_check` and only
  * then renamed to `target`, so a crash or a failed check never leaves a half backup under a real name.
  *
+ * @param beforeRename runs on the checked, closed copy just before the rename (the photographs are
+ *   captured there, so a backup under its real name always has its photo folder)
  * @returns the size of the finished copy in bytes
- * @throws {Error} when the copy fails its integrity check (the partial file is removed)
+ * @throws {Error} when the copy fails its integrity check or `beforeRename` fails (the partial file is removed)
  */
-export async function writeVerifiedCopy(source: Database.Database, target: string): Promise<number> {
+export async function writeVerifiedCopy(source: Database.Database, target: string, beforeRename?: (checkedCopy: string) => Promise<void>): Promise<number> {
   mkdirSync(path.dirname(target), { recursive: true });
   const partial = `${target}.partial`;
   rmSync(partial, { force: true });
@@ -71,6 +78,7 @@ export async function writeVerifiedCopy(source: Database.Database, target: strin
     } finally {
       copy.close();
     }
+    await beforeRename?.(partial);
     renameSync(partial, target);
   } finally {
     for (const leftover of [partial, `${partial}-wal`, `${partial}-shm`, `${partial}-journal`]) rmSync(leftover, { force: true });
@@ -86,12 +94,19 @@ export interface BackupOptions {
   backupsDir: string;
   /** The time in the backup's name; now by default. */
   at?: Date;
+  /**
+   * Where photographs live: the uploads folder's are captured into `<backup name>-photos/`; with
+   * object storage, or when not given, the backup holds the database only and says so.
+   */
+  photoStorage?: PhotoStorageConfig | null;
 }
 
 /**
  * Takes an online backup of the live database into `<backupsDir>/tidemark-<UTC stamp>.sqlite` and
  * verifies it (see {@link writeVerifiedCopy}). Safe while the server is serving: the server's
  * writers are not blocked (WAL) and the copy holds exactly the transactions committed when it began.
+ * With photographs in the uploads folder, the files that copy refers to are then placed beside it
+ * in `tidemark-<UTC stamp>-photos/` (hard links where possible; see `backup-photos.ts`).
  *
  * @throws {Error} when there is no database at `databaseFile`, or the copy is damaged
  * @example await backupDatabase({ databaseFile: 'data/tidemark.sqlite', backupsDir: 'data/backups' })
@@ -103,8 +118,11 @@ export async function backupDatabase(options: BackupOptions): Promise<BackupResu
   // The server's busy timeout: a checkpoint or a migration in progress is waited for, not failed on.
   const source = new Database(options.databaseFile, { fileMustExist: true, timeout: 5000 });
   try {
-    const bytes = await writeVerifiedCopy(source, file);
-    return { file, bytes, durationMs: Math.round(performance.now() - started) };
+    let photos: PhotoBackup = { kind: 'not-reported' };
+    const bytes = await writeVerifiedCopy(source, file, async (checkedCopy) => {
+      photos = await backupPhotos(checkedCopy, photoFolderOf(file), options.photoStorage);
+    });
+    return { file, bytes, durationMs: Math.round(performance.now() - started), photos };
   } finally {
     source.close();
   }

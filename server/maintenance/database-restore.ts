@@ -3,22 +3,14 @@ import path from 'node:path';
 import Database from 'better-sqlite3';
 import { createDataSource } from '../data-source';
 import { migrations } from '../migrations';
+import type { PhotoStorageConfig } from '../storage/create-photo-storage';
+import { backupPhotos, photoFolderOf } from './backup-photos';
 import { ALL_PAGES, integrityOf, nextBackupPath, writeVerifiedCopy } from './database-backup';
 import { DatabaseInUseError, holdDatabaseExclusively, type ExclusiveDatabaseHold } from './exclusive-database-hold';
+import { RestoreRefusedError } from './restore-refused-error';
+import { stageBackupPhotos, swapInPhotos, type PhotoRestore, type PhotoSwap, type StagedPhotos } from './restore-photos';
 
-/** Why a restore was refused (nothing was changed). */
-export type RestoreRefusal = 'missing' | 'same-file' | 'not-sqlite' | 'damaged' | 'not-tidemark' | 'newer-schema' | 'in-use';
-
-/** A restore refused before the live database was touched; the message is for people. */
-export class RestoreRefusedError extends Error {
-  constructor(
-    readonly reason: RestoreRefusal,
-    message: string,
-  ) {
-    super(message);
-    this.name = 'RestoreRefusedError';
-  }
-}
+export { RestoreRefusedError, type RestoreRefusal } from './restore-refused-error';
 
 /** What a checked backup holds. */
 export interface BackupInspection {
@@ -36,6 +28,12 @@ export interface RestoreResult {
   appliedMigrations: string[];
   /** Size of the restored database. */
   bytes: number;
+  /** The photographs: put back from the backup's photo folder, or why not. */
+  photos: PhotoRestore;
+  /** The photo folder of the safety copy (the photographs as they were before); null when none was made. */
+  safetyPhotos: string | null;
+  /** The replaced uploads folder, kept under another name when there was no database to make a safety copy of; else null. */
+  photosSetAside: string | null;
 }
 
 /** Where {@link restoreDatabase} reads and writes. */
@@ -48,6 +46,12 @@ export interface RestoreOptions {
   backupsDir: string;
   /** Time in the safety copy's name; now by default. */
   at?: Date;
+  /**
+   * Where photographs live. The uploads folder is replaced by the backup's photo folder (checked
+   * first: every file the restored database refers to, byte for byte); with object storage, or
+   * when not given, photographs are left as they are.
+   */
+  photoStorage?: PhotoStorageConfig | null;
 }
 
 /** Every SQLite file starts with these 16 bytes (sqlite.org/fileformat.html §1.3.1). */
@@ -170,14 +174,19 @@ function settleStaged(staged: string, pageSize: number | null): void {
  * 1. refuses while anyone has the live database open (see {@link holdDatabaseExclusively}) and
  *    keeps it to itself from then on, so the server cannot start half-way;
  * 2. copies the backup (online backup API) to a staging file beside the live one and checks it
- *    ({@link inspectDatabaseFile}); a refusal leaves everything as it was;
- * 3. keeps a safety copy of the live database in `backupsDir` (`before-restore-<stamp>.sqlite`);
+ *    ({@link inspectDatabaseFile}); with photographs in the uploads folder, checks the backup's
+ *    photo folder and stages it as `<uploads>.restoring` (`restore-photos.ts`); a refusal leaves
+ *    everything as it was;
+ * 3. keeps a safety copy of the live database in `backupsDir` (`before-restore-<stamp>.sqlite`,
+ *    with its photo folder: itself a backup that restores);
  * 4. runs the pending migrations on the staged copy and empties its session table;
- * 5. writes the staged copy into the live file through the backup API, which replaces it in one
- *    transaction of the live file's own journal (no stale -wal/-shm, no half-written file).
+ * 5. swaps the staged photographs in for the uploads folder (two renames), then writes the staged
+ *    copy into the live file through the backup API, which replaces it in one transaction of the
+ *    live file's own journal (no stale -wal/-shm, no half-written file); if that write fails, the
+ *    old uploads folder is put back.
  *
  * @throws {RestoreRefusedError} when the backup is missing, not SQLite, damaged, not Tidemark's,
- *   from a newer version, or the database is in use
+ *   from a newer version, the database is in use, or its photo folder lacks or spoils a photograph
  */
 export async function restoreDatabase(options: RestoreOptions): Promise<RestoreResult> {
   const { source, databaseFile, backupsDir } = options;
@@ -188,6 +197,8 @@ export async function restoreDatabase(options: RestoreOptions): Promise<RestoreR
   if (!startsLikeSqlite(source)) throw new RestoreRefusedError('not-sqlite', `${source} is not a SQLite database (a Tidemark backup is a .sqlite file made by npm run backup).`);
 
   let hold: ExclusiveDatabaseHold | null = null;
+  let stagedPhotos: StagedPhotos | null = null;
+  let swap: PhotoSwap | null = null;
   const staged = path.join(path.dirname(databaseFile), `${path.basename(databaseFile)}.restoring`);
   const stagedFiles = [staged, `${staged}-wal`, `${staged}-shm`, `${staged}-journal`];
   try {
@@ -204,20 +215,34 @@ export async function restoreDatabase(options: RestoreOptions): Promise<RestoreR
     for (const file of stagedFiles) rmSync(file, { force: true });
     await stageBackup(source, staged);
     inspectDatabaseFile(staged);
+    const photos = await stageBackupPhotos(staged, source, options.photoStorage);
+    stagedPhotos = photos.staged;
 
     const safetyCopy = hold && hasLiveData ? nextBackupPath(backupsDir, options.at ?? new Date(), 'before-restore') : null;
-    if (hold && safetyCopy) await writeVerifiedCopy(hold.db, safetyCopy);
+    let safetyPhotos: string | null = null;
+    if (hold && safetyCopy) {
+      await writeVerifiedCopy(hold.db, safetyCopy, async (checkedCopy) => {
+        const captured = await backupPhotos(checkedCopy, photoFolderOf(safetyCopy), options.photoStorage);
+        if (captured.kind === 'captured') safetyPhotos = captured.folder;
+      });
+    }
     const pageSize = hold ? Number(hold.db.pragma('page_size', { simple: true })) : null;
 
     const appliedMigrations = await migrateStaged(staged);
     settleStaged(staged, pageSize);
     if (inspectDatabaseFile(staged).pendingMigrations.length) throw new Error('The restored database still has pending migrations.');
 
+    if (stagedPhotos) swap = await swapInPhotos(stagedPhotos);
     // The hold must go before the copy: the backup API writes through a connection of its own.
     hold?.release();
     const reader = new Database(staged, { readonly: true, fileMustExist: true });
     try {
       await reader.backup(databaseFile, { progress: () => ALL_PAGES });
+    } catch (error) {
+      // The live database is as it was: so must the photographs be.
+      await swap?.undo();
+      swap = null;
+      throw error;
     } finally {
       reader.close();
     }
@@ -228,9 +253,13 @@ export async function restoreDatabase(options: RestoreOptions): Promise<RestoreR
     } finally {
       live.close();
     }
-    return { safetyCopy, appliedMigrations, bytes: statSync(databaseFile).size };
+    // The replaced photographs live on in the safety copy's photo folder; without one (no database before), they stay set aside.
+    if (safetyPhotos) await swap?.finish();
+    const photosSetAside = safetyPhotos ? null : (swap?.aside ?? null);
+    return { safetyCopy, appliedMigrations, bytes: statSync(databaseFile).size, photos: photos.report, safetyPhotos, photosSetAside };
   } finally {
     hold?.release();
     for (const file of stagedFiles) rmSync(file, { force: true });
+    if (stagedPhotos && !swap) rmSync(stagedPhotos.staging, { recursive: true, force: true });
   }
 }

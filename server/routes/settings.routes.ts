@@ -11,7 +11,7 @@ export function settingsRoutes(overview: SystemOverviewService): Router {
     res.json(await overview.describe());
   });
 
-  // Takes no input: a backup of the whole SQLite file, now. 409 on PostgreSQL.
+  // Takes no input: a backup of the whole SQLite file (and the photographs it refers to in the uploads folder), now. 409 on PostgreSQL.
   router.post('/backups', async (_req, res) => {
     res.status(201).json(await overview.takeBackup());
   });

@@ -166,8 +166,8 @@ export class SystemOverviewService {
   }
 
   /**
-   * Takes an online backup of the SQLite file into the backups folder and checks it
-   * (maintenance/database-backup.ts).
+   * Takes an online backup of the SQLite file into the backups folder and checks it, with the
+   * photographs it refers to when they are kept in the uploads folder (maintenance/database-backup.ts).
    *
    * @throws {HttpError} 409 on PostgreSQL, or while another backup from this server is running
    */
@@ -178,7 +178,7 @@ export class SystemOverviewService {
     this.isBackingUp = true;
     try {
       const at = new Date(this.clock());
-      const result = await backupDatabase({ databaseFile, backupsDir: this.options.backupsDir, at });
+      const result = await backupDatabase({ databaseFile, backupsDir: this.options.backupsDir, at, photoStorage: this.options.photoStorage });
       return backupTakenSchema.parse({ name: path.basename(result.file), bytes: result.bytes, takenAt: wholeSecondIso(at), durationMs: result.durationMs });
     } finally {
       this.isBackingUp = false;

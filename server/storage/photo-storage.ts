@@ -26,7 +26,8 @@ export class LocalPhotoStorage implements PhotoStorage {
   async put(key: string, bytes: Buffer): Promise<void> {
     const full = this.resolve(key);
     await mkdir(path.dirname(full), { recursive: true });
-    await writeFile(full, bytes, { mode: 0o600 });
+    // 'wx': a stored photo is never overwritten (keys are fresh), so backups may hard-link it safely.
+    await writeFile(full, bytes, { mode: 0o600, flag: 'wx' });
   }
 
   get(key: string): Promise<Buffer> {

@@ -2,8 +2,9 @@ import { existsSync, readdirSync, rmSync, statSync } from 'node:fs';
 import path from 'node:path';
 import type { CaseDetail } from '@tidemark/shared';
 import { caseBody, siteBody, visitBody } from '../api/support/clinical-fixtures';
-import { createTestApp, demoEmail } from '../api/support/test-app';
-import { startServer, type RunningServer } from '../e2e/support/server';
+import { demoEmail } from '../api/support/test-app';
+import type { RunningServer } from '../e2e/support/server';
+import { preparedDataDir, startServerOn } from './support/served-data-dir';
 import { backupDatabase } from '../../server/maintenance/database-backup';
 import { soundness, withDatabase } from './support/database-checks';
 import { ServerSession } from './support/server-session';
@@ -26,17 +27,11 @@ describe('backup and restore with the server running', () => {
   /** The CLIs' environment: the same data dir as the server. */
   let env: Record<string, string>;
 
-  /** Starts the server on our data dir (startServer makes a temporary one of its own, which stays unused). */
-  const start = async (): Promise<RunningServer> => startServer({ TIDEMARK_DATA_DIR: dataDir, TIDEMARK_DAILY_BACKUPS: '0' });
+  const start = (): Promise<RunningServer> => startServerOn(dataDir);
 
   beforeAll(async () => {
-    // A migrated database with the demo accounts: the server then skips the demo practice.
-    const t = await createTestApp();
-    await t.dataSource.destroy();
-    dataDir = t.dataDir;
-    database = path.join(dataDir, 'tidemark.sqlite');
+    ({ dataDir, database, env } = await preparedDataDir());
     backupsDir = path.join(dataDir, 'backups');
-    env = { TIDEMARK_DATA_DIR: dataDir };
     server = await start();
   }, 120_000);
 

@@ -23,13 +23,15 @@ export class ServerSession {
     return moved;
   }
 
-  /** One request; JSON in, JSON out. */
-  async send<T = unknown>(method: 'GET' | 'POST' | 'PATCH' | 'DELETE', url: string, body?: object): Promise<ServerAnswer<T>> {
+  /** One request; JSON (or a multipart form) in, JSON out. */
+  async send<T = unknown>(method: 'GET' | 'POST' | 'PATCH' | 'DELETE', url: string, body?: object | FormData): Promise<ServerAnswer<T>> {
     if (method !== 'GET' && !this.cookies.has('XSRF-TOKEN')) await this.send('GET', '/api/auth/me');
     const headers: Record<string, string> = { cookie: [...this.cookies].map(([name, value]) => `${name}=${value}`).join('; ') };
     if (method !== 'GET') headers['x-xsrf-token'] = this.cookies.get('XSRF-TOKEN') ?? '';
-    if (body !== undefined) headers['content-type'] = 'application/json';
-    const response = await fetch(`${this.baseUrl}${url}`, { method, headers, body: body === undefined ? undefined : JSON.stringify(body), redirect: 'manual' });
+    // fetch writes a form's multipart content type (with its boundary) itself.
+    if (body !== undefined && !(body instanceof FormData)) headers['content-type'] = 'application/json';
+    const payload = body === undefined || body instanceof FormData ? body : JSON.stringify(body);
+    const response = await fetch(`${this.baseUrl}${url}`, { method, headers, body: payload, redirect: 'manual' });
     for (const line of response.headers.getSetCookie()) {
       const pair = line.split(';')[0];
       const name = pair.slice(0, pair.indexOf('='));
@@ -45,7 +47,7 @@ export class ServerSession {
     return this.send<T>('GET', url);
   }
 
-  post<T = unknown>(url: string, body: object): Promise<ServerAnswer<T>> {
+  post<T = unknown>(url: string, body: object | FormData): Promise<ServerAnswer<T>> {
     return this.send<T>('POST', url, body);
   }
 

@@ -1,5 +1,5 @@
 import type { SignInOverview } from '@tidemark/shared';
-import { NOT_REPORTED, durationInWords, mailSummary, photoStorageSummary, schemaSummary, secondFactorRule, sessionLimitsRule } from './installation-wording';
+import { NOT_REPORTED, backupPhotosNote, durationInWords, mailSummary, photoStorageSummary, schemaSummary, secondFactorRule, sessionLimitsRule } from './installation-wording';
 
 const REQUIRED: SignInOverview = { secondFactorPolicy: 'required', requiredRoles: ['admin', 'audit_lead'], sessionIdleMinutes: 30, sessionAbsoluteMinutes: 480 };
 
@@ -31,6 +31,14 @@ describe('installation wording', () => {
     );
     expect(mailSummary({ kind: 'stand-in', from: 'x' })).toContain('nothing leaves the machine');
     expect(mailSummary(null)).toBe(NOT_REPORTED);
+  });
+
+  it('says whether backups hold the photographs, by where they are kept', () => {
+    expect(backupPhotosNote({ kind: 'data-folder' })).toContain('kept beside it, in a folder of the same name ending in “-photos”');
+    expect(backupPhotosNote({ kind: 'object-storage', bucket: 'b', prefix: '', region: 'us-east-1', endpoint: null })).toBe(
+      'Photographs are not in it: they are kept in object storage, whose own versioning keeps their history.',
+    );
+    expect(backupPhotosNote(null)).toContain('which this server did not report');
   });
 
   it('says whether the schema is up to date', () => {

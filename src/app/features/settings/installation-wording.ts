@@ -37,6 +37,15 @@ export function photoStorageSummary(storage: PhotoStorageOverview): string {
   return `In bucket “${storage.bucket}”${storage.prefix ? `, folder “${storage.prefix}”` : ''}, on ${place}. Objects are private and only served through Tidemark.`;
 }
 
+/** Whether backups hold the photographs, in a sentence (server/maintenance/backup-photos.ts). */
+export function backupPhotosNote(storage: PhotoStorageOverview): string {
+  if (!storage) return 'Whether it includes the photographs depends on where they are kept, which this server did not report.';
+  if (storage.kind === 'data-folder') {
+    return 'The photographs it refers to are kept beside it, in a folder of the same name ending in “-photos”, linked rather than copied where the disk allows; copy the backups folder to another machine to survive a disk loss.';
+  }
+  return 'Photographs are not in it: they are kept in object storage, whose own versioning keeps their history.';
+}
+
 /** How Tidemark sends e-mail, in a sentence. */
 export function mailSummary(mail: MailOverview): string {
   if (!mail) return NOT_REPORTED;

@@ -8,7 +8,7 @@ import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatProgressBarHarness } from '@angular/material/progress-bar/testing';
 import { MatSnackBarHarness } from '@angular/material/snack-bar/testing';
 import { MatTableHarness } from '@angular/material/table/testing';
-import type { BackupTaken, BackupsOverview } from '@tidemark/shared';
+import type { BackupTaken, BackupsOverview, PhotoStorageOverview } from '@tidemark/shared';
 import { SYSTEM_OVERVIEW } from '../testing/system-overview-fixture';
 import { BackupsPanel, backupFailure } from './backups-panel';
 
@@ -21,9 +21,10 @@ describe('BackupsPanel', () => {
   let http: HttpTestingController;
   let taken: BackupTaken[];
 
-  async function render(backups: BackupsOverview): Promise<void> {
+  async function render(backups: BackupsOverview, photoStorage: PhotoStorageOverview = null): Promise<void> {
     fixture = TestBed.createComponent(BackupsPanel);
     fixture.componentRef.setInput('backups', backups);
+    fixture.componentRef.setInput('photoStorage', photoStorage);
     taken = [];
     fixture.componentInstance.backupTaken.subscribe((backup) => taken.push(backup));
     loader = TestbedHarnessEnvironment.loader(fixture);
@@ -80,6 +81,16 @@ describe('BackupsPanel', () => {
     expect(fixture.nativeElement.querySelector('[role="alert"]').textContent).toContain('A backup is being taken already.');
     expect(taken).toEqual([]);
     expect(await (await takeButton()).isDisabled()).toBe(false);
+  });
+
+  it('says the photographs of the uploads folder are in each backup, and those in object storage are not', async () => {
+    await render(SYSTEM_OVERVIEW.backups, { kind: 'data-folder' });
+    const text = (): string => fixture.nativeElement.querySelector('.note').textContent;
+    expect(text()).toContain('The photographs it refers to are kept beside it, in a folder of the same name ending in “-photos”');
+    expect(text()).not.toContain('not in it');
+    fixture.componentRef.setInput('photoStorage', { kind: 'object-storage', bucket: 'harbour-photos', prefix: '', region: 'eu-west-1', endpoint: null });
+    await fixture.whenStable();
+    expect(text()).toContain('Photographs are not in it: they are kept in object storage, whose own versioning keeps their history.');
   });
 
   it('offers no backup button on PostgreSQL and says which tools back it up', async () => {

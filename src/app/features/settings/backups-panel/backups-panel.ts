@@ -1,17 +1,17 @@
 import { HttpErrorResponse } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, DestroyRef, LOCALE_ID, inject, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, LOCALE_ID, computed, inject, input, output, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTableModule } from '@angular/material/table';
-import type { BackupFile, BackupTaken, BackupsOverview } from '@tidemark/shared';
+import type { BackupFile, BackupTaken, BackupsOverview, PhotoStorageOverview } from '@tidemark/shared';
 import { apiErrorDetails } from '../../../core/http/api-error-details';
 import { describeHttpError } from '../../../core/http/describe-http-error';
 import { LocalDatePipe } from '../../../shared/dates/local-date-pipe';
 import { formatByteSize } from '../byte-size';
-import { BACKUP_KIND_LABELS } from '../installation-wording';
+import { BACKUP_KIND_LABELS, backupPhotosNote } from '../installation-wording';
 import { SettingsApi } from '../settings-api';
 
 /** Columns of the backups table, in order. */
@@ -33,10 +33,13 @@ export class BackupsPanel {
 
   /** The backups folder as the overview reported it. */
   readonly backups = input.required<BackupsOverview>();
+  /** Where photographs are kept: backups hold those of the uploads folder, not those in object storage. */
+  readonly photoStorage = input<PhotoStorageOverview>(null);
   /** A backup was taken and checked: the page reads the overview again. */
   readonly backupTaken = output<BackupTaken>();
 
   protected readonly columns = COLUMNS;
+  protected readonly photosNote = computed(() => backupPhotosNote(this.photoStorage()));
   protected readonly isTakingBackup = signal(false);
   /** Why the last attempt failed, in a sentence. */
   protected readonly failure = signal<string | null>(null);

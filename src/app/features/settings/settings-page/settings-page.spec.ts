@@ -57,6 +57,8 @@ describe('SettingsPage', () => {
     expect(page).toContain('Through smtp.example.org, port 587, upgraded to TLS when the server offers it, with a mail account.');
     expect(page).toContain('Tidemark <no-reply@example.org>');
     expect(page).toContain('In the uploads folder of the data folder');
+    // The backups card is told where photographs are kept: backups hold those of the uploads folder.
+    expect(page).toContain('in a folder of the same name ending in “-photos”');
     expect(page).toContain('Required of administrators and audit leads');
     expect(page).toContain('Signed out after 30 minutes without activity, and 8 hours after signing in');
     expect(page).not.toContain('Demo mode is on');
