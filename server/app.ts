@@ -21,7 +21,8 @@ import { secondFactorRoutes } from './routes/second-factor.routes';
 import type { SecondFactorPolicy } from '@tidemark/shared';
 import { apiNotFound } from './middleware/not-found';
 import { governanceRedaction } from './middleware/governance-redaction';
-import { authRoutes, DEFAULT_LOGIN_LIMITS, SESSION_COOKIE, type LoginLimits } from './routes/auth.routes';
+import { authRoutes, DEFAULT_LOGIN_LIMITS, type LoginLimits } from './routes/auth.routes';
+import { cookieNames } from './auth/cookie-names';
 import { healthRoutes } from './routes/health.routes';
 import { userRoutes } from './routes/users.routes';
 import { passwordRoutes, type PasswordChangeLimits } from './routes/password.routes';
@@ -85,6 +86,12 @@ export interface AppOptions {
   /** Password hashing cost; tests lower it, production keeps OWASP's. */
   scryptCost?: ScryptCost;
   loginLimits?: LoginLimits;
+  /**
+   * The installation is reached over HTTPS only (server/main.ts: APP_URL starts with https://):
+   * both cookies are always Secure and carry the `__Host-` prefix (auth/cookie-names.ts). Needs
+   * TRUST_PROXY behind a TLS-terminating proxy, or express-session will not set a Secure cookie.
+   */
+  isHttpsOnly?: boolean;
   /** Refused own-password changes allowed per member (default 5 per 15 minutes). */
   passwordChangeLimits?: PasswordChangeLimits;
   /** pino level; 'silent' in tests. */
@@ -206,7 +213,8 @@ export function createApp(options: AppOptions): TidemarkApp {
   const passport = createPassport(users, signInAddressHash(options.secret));
   const ownSessions = new OwnSessionsService(sessions, options.secret, SESSION_IDLE_MS, (userId) => users.exists(userId));
   const secondFactors = new SecondFactorService(options.dataSource, sessions, { policy: options.secondFactor ?? 'required', appSecret: options.secret, clock: options.clock });
-  const csrf = createCsrfProtection(options.secret);
+  const cookies = cookieNames(options.isHttpsOnly ?? false);
+  const csrf = createCsrfProtection(options.secret, cookies);
   const services = createServices(options.dataSource, options.photoStorage, options.mail);
   const exports = new GovernanceExportService(new GovernancePackService(options.dataSource, services.audits, services.cycles, services.operators), { exportsDir: options.exportsDir });
   const imports = new ImportService(options.dataSource, services.schedules);
@@ -235,13 +243,14 @@ export function createApp(options: AppOptions): TidemarkApp {
   app.use(cookieParser());
   app.use(
     session({
-      name: SESSION_COOKIE,
+      name: cookies.session,
       secret: options.secret,
       store: sessions,
       resave: false,
       saveUninitialized: false,
       rolling: true,
-      cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: SESSION_IDLE_MS, path: '/' },
+      // Reached over HTTPS only: always Secure (required by the __Host- prefix); otherwise Secure when the request came over HTTPS.
+      cookie: { httpOnly: true, sameSite: 'lax', secure: cookies.isHttpsOnly ? true : 'auto', maxAge: SESSION_IDLE_MS, path: '/' },
     }),
   );
   app.use(absoluteTimeout);
@@ -257,7 +266,7 @@ export function createApp(options: AppOptions): TidemarkApp {
   api.use('/auth/second-factor', secondFactorRoutes(secondFactors, csrf, options.loginLimits ?? DEFAULT_LOGIN_LIMITS));
   api.use('/auth/sessions', ownSessionRoutes(ownSessions));
   api.use('/auth/password', passwordRoutes(users, services.mail, options.passwordChangeLimits));
-  api.use('/auth', authRoutes(passport, csrf, options.loginLimits ?? DEFAULT_LOGIN_LIMITS, secondFactors));
+  api.use('/auth', authRoutes(passport, csrf, options.loginLimits ?? DEFAULT_LOGIN_LIMITS, secondFactors, cookies));
   api.use('/users', userRoutes(users, secondFactors, ownSessions));
   api.use('/operators', operatorRoutes(services.operators));
   api.use('/patients', patientRoutes(services.patients));

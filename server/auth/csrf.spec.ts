@@ -1,5 +1,8 @@
 import type { NextFunction, Request, Response } from 'express';
-import { createCsrfProtection, VALID_COOKIE_MEMORY, XSRF_COOKIE } from './csrf';
+import { cookieNames } from './cookie-names';
+import { createCsrfProtection, VALID_COOKIE_MEMORY } from './csrf';
+
+const XSRF_COOKIE = cookieNames(false).xsrf;
 
 const SECRET = 'csrf-spec-secret-that-is-long-enough-0123456789';
 

@@ -1,10 +1,10 @@
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import { doubleCsrf } from 'csrf-csrf';
 import { HttpError } from '../http-error';
+import { cookieNames, type CookieNames } from './cookie-names';
 import { logCsrfRefused } from '../logging/security-events';
 
-/** Cookie and header names Angular's HttpClient uses by default. */
-export const XSRF_COOKIE = 'XSRF-TOKEN';
+/** The header Angular's HttpClient sends the token in (the cookie's name is in cookie-names.ts). */
 export const XSRF_HEADER = 'x-xsrf-token';
 
 const UNSAFE_METHODS = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
@@ -21,19 +21,19 @@ export interface CsrfProtection {
 }
 
 /** Builds the CSRF middleware (csrf-csrf signed double submit, OWASP CSRF Prevention Cheat Sheet). */
-export function createCsrfProtection(secret: string): CsrfProtection {
+export function createCsrfProtection(secret: string, names: CookieNames = cookieNames(false)): CsrfProtection {
   const { generateCsrfToken, validateRequest } = doubleCsrf({
     getSecret: () => secret,
     getSessionIdentifier: (req) => req.sessionID,
-    cookieName: XSRF_COOKIE,
+    cookieName: names.xsrf,
     // Readable by the client script (that is the point of double submit); the session cookie stays HttpOnly.
-    cookieOptions: { httpOnly: false, sameSite: 'lax', path: '/', secure: false },
+    cookieOptions: { httpOnly: false, sameSite: 'lax', path: '/', secure: names.isHttpsOnly },
     getCsrfTokenFromRequest: (req) => req.headers[XSRF_HEADER] as string | undefined,
   });
 
   const issue = (req: Request, res: Response, overwrite: boolean): void => {
     req.session.csrfIssuedAt = Date.now();
-    generateCsrfToken(req, res, { overwrite, cookieOptions: { httpOnly: false, sameSite: 'lax', path: '/', secure: req.secure } });
+    generateCsrfToken(req, res, { overwrite, cookieOptions: { httpOnly: false, sameSite: 'lax', path: '/', secure: names.isHttpsOnly || req.secure } });
   };
 
   /**
@@ -47,7 +47,7 @@ export function createCsrfProtection(secret: string): CsrfProtection {
 
   /** Validates the cookie on its own by probing with a request whose header repeats the cookie. */
   const hasValidCookie = (req: Request): boolean => {
-    const cookie: unknown = req.cookies?.[XSRF_COOKIE];
+    const cookie: unknown = req.cookies?.[names.xsrf];
     if (typeof cookie !== 'string' || cookie === '') return false;
     const sessionId = req.sessionID;
     const remembered = validCookies.get(sessionId);

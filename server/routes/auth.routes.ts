@@ -1,6 +1,7 @@
 import { Router, type NextFunction, type Request, type Response } from 'express';
 import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
 import { loginSchema, type SessionResponse, type SignInOptions } from '@tidemark/shared';
+import type { CookieNames } from '../auth/cookie-names';
 import type { CsrfProtection } from '../auth/csrf';
 import { SIGN_IN_FAILED_MESSAGE, type PassportInstance } from '../auth/passport-setup';
 import { HttpError } from '../http-error';
@@ -38,7 +39,7 @@ function emailKey(req: Request): string {
 }
 
 /** Sign-in (password step), sign-out, the current session and what the sign-in page must know. */
-export function authRoutes(passport: PassportInstance, csrf: CsrfProtection, limits: LoginLimits, secondFactors: SecondFactorService): Router {
+export function authRoutes(passport: PassportInstance, csrf: CsrfProtection, limits: LoginLimits, secondFactors: SecondFactorService, cookies: CookieNames): Router {
   const router = Router();
   const common = { windowMs: limits.windowMs, standardHeaders: 'draft-7' as const, legacyHeaders: false, skipSuccessfulRequests: true };
   const perAddress = rateLimit({ ...common, limit: limits.perAddress, keyGenerator: (req) => ipKeyGenerator(req.ip ?? ''), handler: tooManyAttempts(limits.windowMs, 'address') });
@@ -89,7 +90,8 @@ export function authRoutes(passport: PassportInstance, csrf: CsrfProtection, lim
       req.session.destroy((destroyError) => {
         if (destroyError) return next(destroyError);
         if (userId !== undefined) logSignOut(req, userId);
-        res.clearCookie(SESSION_COOKIE);
+        // With the same attributes it was set with: a browser ignores a __Host- cookie's removal without Secure and path /.
+        res.clearCookie(cookies.session, { path: '/', httpOnly: true, sameSite: 'lax', secure: cookies.isHttpsOnly || req.secure });
         res.status(204).end();
       });
     });
@@ -98,5 +100,3 @@ export function authRoutes(passport: PassportInstance, csrf: CsrfProtection, lim
   return router;
 }
 
-/** The session cookie's name (not express-session's default `connect.sid`). */
-export const SESSION_COOKIE = 'tm.sid';

@@ -1,4 +1,4 @@
-import { provideHttpClient, withInterceptors, withXsrfConfiguration } from '@angular/common/http';
+import { HttpXsrfTokenExtractor, provideHttpClient, withInterceptors, withXsrfConfiguration } from '@angular/common/http';
 import {
   ApplicationConfig,
   inject,
@@ -12,6 +12,7 @@ import { routes } from './app.routes';
 import { AuthSession } from './core/auth/auth-session';
 import { errorNoticeInterceptor } from './core/http/error-notice-interceptor';
 import { sessionExpiryInterceptor } from './core/http/session-expiry-interceptor';
+import { XsrfCookieExtractor } from './core/http/xsrf-cookie-extractor';
 import { PageTitleStrategy } from './core/shell/page-title-strategy';
 import { ColorScheme } from './core/theme/color-scheme';
 
@@ -29,6 +30,8 @@ export const appConfig: ApplicationConfig = {
       // on every POST/PATCH/DELETE; Angular copies it for same-origin (relative) URLs.
       withXsrfConfiguration({ cookieName: 'XSRF-TOKEN', headerName: 'X-XSRF-TOKEN' }),
     ),
+    // …from `__Host-XSRF-TOKEN` instead when the installation is reached over HTTPS only.
+    { provide: HttpXsrfTokenExtractor, useClass: XsrfCookieExtractor },
     // Icons come from the Material Symbols font shipped from npm (see angular.json styles).
     provideAppInitializer(() => {
       inject(MatIconRegistry).setDefaultFontSetClass('material-symbols-outlined', 'mat-ligature-font');

@@ -30,7 +30,7 @@ export interface TestApp extends TidemarkApp {
 }
 
 /** Builds the app on a fresh migrated database (a temporary SQLite file, or PostgreSQL under TIDEMARK_TEST_PG_URL) with the demo accounts. */
-export async function createTestApp(options: { loginLimits?: LoginLimits; passwordChangeLimits?: PasswordChangeLimits; trustProxy?: boolean; mailTransport?: Transporter; photoStorage?: PhotoStorage; secondFactor?: SecondFactorPolicy; clock?: () => number; installation?: InstallationFacts; log?: { level: string; destination: DestinationStream } } = {}): Promise<TestApp> {
+export async function createTestApp(options: { loginLimits?: LoginLimits; passwordChangeLimits?: PasswordChangeLimits; trustProxy?: boolean; isHttpsOnly?: boolean; mailTransport?: Transporter; photoStorage?: PhotoStorage; secondFactor?: SecondFactorPolicy; clock?: () => number; installation?: InstallationFacts; log?: { level: string; destination: DestinationStream } } = {}): Promise<TestApp> {
   const dataDir = mkdtempSync(path.join(tmpdir(), 'tidemark-test-'));
   const database = await openTestDatabase(dataDir);
   const dataSource = database.dataSource;
@@ -49,6 +49,7 @@ export async function createTestApp(options: { loginLimits?: LoginLimits; passwo
     logLevel: options.log?.level ?? 'silent',
     logDestination: options.log?.destination,
     trustProxy: options.trustProxy,
+    isHttpsOnly: options.isHttpsOnly,
     // Most suites sign in as admin or audit lead with a password only; second-factor tests pass 'required'.
     secondFactor: options.secondFactor ?? 'offered',
     clock: options.clock,
