@@ -57,6 +57,9 @@ export interface UserView {
   secondFactorEnabled: boolean;
 }
 
+/** Said when a new password repeats the current one (the client says it before sending). */
+export const SAME_PASSWORD_MESSAGE = 'Choose a password different from the current one.';
+
 /**
  * `POST /api/auth/password` body: a member changes their own password, proving the current one
  * (OWASP ASVS 5.0 §6.2.2, §6.2.3). The new one must differ from it; the server also refuses
@@ -67,7 +70,7 @@ export const passwordChangeSchema = z
     currentPassword: z.string({ error: 'Enter your current password.' }).min(1, 'Enter your current password.').max(256),
     newPassword: passwordSchema,
   })
-  .refine((body) => body.newPassword !== body.currentPassword, { path: ['newPassword'], message: 'Choose a password different from the current one.' });
+  .refine((body) => body.newPassword !== body.currentPassword, { path: ['newPassword'], message: SAME_PASSWORD_MESSAGE });
 export type PasswordChange = z.infer<typeof passwordChangeSchema>;
 
 /** Response of `POST /api/auth/password`. */

@@ -1,4 +1,3 @@
-import { HttpErrorResponse } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, DestroyRef, inject, output, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule, type FormGroupDirective } from '@angular/forms';
@@ -6,14 +5,13 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { PASSWORD_MIN_LENGTH, passwordChangeSchema, passwordSchema, type PasswordChangeResult } from '@tidemark/shared';
-import { apiErrorDetails } from '../../../core/http/api-error-details';
-import { describeHttpError } from '../../../core/http/describe-http-error';
-import { matchesPassword } from '../../../shared/forms/matching-password';
-import { SCHEMA_ERROR, SERVER_ERROR, fieldMessage, zodValidator } from '../../../shared/forms/zod-validator';
+import { PASSWORD_MIN_LENGTH, SAME_PASSWORD_MESSAGE, passwordChangeSchema, passwordSchema, type PasswordChangeResult } from '@tidemark/shared';
+import { matchesPassword, recheckRepeatOnChange, requireRepeat } from '../../../shared/forms/matching-password';
+import { SCHEMA_ERROR, fieldMessage, zodValidator } from '../../../shared/forms/zod-validator';
 import { AccountSecurityApi } from '../account-security-api';
 import { VisibilityToggle } from '../../../shared/forms/visibility-toggle/visibility-toggle';
 import { PasswordRules } from '../../../shared/forms/password-rules/password-rules';
+import { showServerFieldErrors } from '../../../shared/forms/server-field-errors';
 
 /** The own-password form's controls. */
 interface OwnPasswordForm {
@@ -67,23 +65,17 @@ export class PasswordPanel {
   readonly changed = output<PasswordChangeResult>();
 
   constructor() {
-    // The repeat field's check reads the new password: look again whenever that changes.
-    this.form.controls.newPassword.valueChanges
-      .pipe(takeUntilDestroyed())
-      .subscribe(() => this.form.controls.repeat.updateValueAndValidity({ emitEvent: false }));
+    recheckRepeatOnChange(this.form.controls.newPassword, this.form.controls.repeat);
   }
-
 
   protected changePassword(formDirective: FormGroupDirective): void {
     if (this.isSaving()) return;
     this.failure.set(null);
     this.outcome.set(null);
     const { currentPassword, newPassword, repeat } = this.form.controls;
-    if (repeat.value === '') {
-      repeat.setErrors({ [SCHEMA_ERROR]: 'Type the new password a second time.' });
-    }
+    requireRepeat(repeat);
     if (newPassword.value !== '' && newPassword.value === currentPassword.value) {
-      newPassword.setErrors({ [SCHEMA_ERROR]: 'Choose a password different from the current one.' });
+      newPassword.setErrors({ [SCHEMA_ERROR]: SAME_PASSWORD_MESSAGE });
     }
     if (this.form.invalid) {
       this.form.markAllAsTouched();
@@ -104,26 +96,9 @@ export class PasswordPanel {
         },
         error: (error: unknown) => {
           this.isSaving.set(false);
-          this.showFailure(error);
+          this.failure.set(showServerFieldErrors(error, this.form, 'The password could not be changed. Try again.'));
         },
       });
   }
 
-  private showFailure(error: unknown): void {
-    if (!(error instanceof HttpErrorResponse)) {
-      this.failure.set('The password could not be changed. Try again.');
-      return;
-    }
-    const details = apiErrorDetails(error);
-    let isShownAtField = false;
-    for (const name of ['currentPassword', 'newPassword'] as const) {
-      const message = details?.fields?.[name];
-      if (!message) continue;
-      const control = this.form.controls[name];
-      control.setErrors({ ...control.errors, [SERVER_ERROR]: message });
-      control.markAsTouched();
-      isShownAtField = true;
-    }
-    if (!isShownAtField) this.failure.set(describeHttpError(error));
-  }
 }

@@ -1,4 +1,3 @@
-import { HttpErrorResponse } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
@@ -8,13 +7,12 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { PASSWORD_MIN_LENGTH, passwordSchema, type UserView } from '@tidemark/shared';
-import { apiErrorDetails } from '../../../core/http/api-error-details';
-import { describeHttpError } from '../../../core/http/describe-http-error';
-import { matchesPassword } from '../../../shared/forms/matching-password';
-import { SCHEMA_ERROR, SERVER_ERROR, fieldMessage, zodValidator } from '../../../shared/forms/zod-validator';
+import { matchesPassword, recheckRepeatOnChange, requireRepeat } from '../../../shared/forms/matching-password';
+import { fieldMessage, zodValidator } from '../../../shared/forms/zod-validator';
 import { TeamApi } from '../team-api';
 import { VisibilityToggle } from '../../../shared/forms/visibility-toggle/visibility-toggle';
 import { PasswordRules } from '../../../shared/forms/password-rules/password-rules';
+import { showServerFieldErrors } from '../../../shared/forms/server-field-errors';
 
 /** The new-password form's controls. */
 interface PasswordForm {
@@ -98,20 +96,14 @@ export class MemberPasswordDialog {
   protected readonly failure = signal<string | null>(null);
 
   constructor() {
-    // The repeat field's check depends on the first field: look again whenever that changes.
-    this.form.controls.password.valueChanges
-      .pipe(takeUntilDestroyed())
-      .subscribe(() => this.form.controls.repeat.updateValueAndValidity({ emitEvent: false }));
+    recheckRepeatOnChange(this.form.controls.password, this.form.controls.repeat);
   }
-
 
   protected savePassword(): void {
     if (this.isSaving()) return;
     this.failure.set(null);
     const { repeat } = this.form.controls;
-    if (repeat.value === '') {
-      repeat.setErrors({ [SCHEMA_ERROR]: 'Type the new password a second time.' });
-    }
+    requireRepeat(repeat);
     if (this.form.invalid) {
       this.form.markAllAsTouched();
       return;
@@ -124,24 +116,9 @@ export class MemberPasswordDialog {
         next: (updated) => this.dialogRef.close(updated),
         error: (error: unknown) => {
           this.isSaving.set(false);
-          this.showFailure(error);
+          this.failure.set(showServerFieldErrors(error, this.form, 'The password could not be saved. Try again.'));
         },
       });
   }
 
-  private showFailure(error: unknown): void {
-    if (!(error instanceof HttpErrorResponse)) {
-      this.failure.set('The password could not be saved. Try again.');
-      return;
-    }
-    // The server's common-password refusal arrives as a field error on `password`.
-    const message = apiErrorDetails(error)?.fields?.['password'];
-    if (message) {
-      const control = this.form.controls.password;
-      control.setErrors({ ...control.errors, [SERVER_ERROR]: message });
-      control.markAsTouched();
-      return;
-    }
-    this.failure.set(describeHttpError(error));
-  }
 }

@@ -1,4 +1,3 @@
-import { HttpErrorResponse } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
@@ -8,10 +7,9 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { displayNameSchema, type UserView } from '@tidemark/shared';
-import { apiErrorDetails } from '../../../core/http/api-error-details';
-import { describeHttpError } from '../../../core/http/describe-http-error';
-import { SERVER_ERROR, fieldMessage, zodValidator } from '../../../shared/forms/zod-validator';
+import { fieldMessage, zodValidator } from '../../../shared/forms/zod-validator';
 import { TeamApi } from '../team-api';
+import { showServerFieldErrors } from '../../../shared/forms/server-field-errors';
 
 /** The rename form's one control. */
 interface RenameForm {
@@ -89,23 +87,9 @@ export class RenameMemberDialog {
         next: (updated) => this.dialogRef.close(updated),
         error: (error: unknown) => {
           this.isSaving.set(false);
-          this.showFailure(error);
+          this.failure.set(showServerFieldErrors(error, this.form, 'The name could not be saved. Try again.'));
         },
       });
   }
 
-  private showFailure(error: unknown): void {
-    if (!(error instanceof HttpErrorResponse)) {
-      this.failure.set('The name could not be saved. Try again.');
-      return;
-    }
-    const message = apiErrorDetails(error)?.fields?.['displayName'];
-    if (message) {
-      const control = this.form.controls.displayName;
-      control.setErrors({ ...control.errors, [SERVER_ERROR]: message });
-      control.markAsTouched();
-      return;
-    }
-    this.failure.set(describeHttpError(error));
-  }
 }
