@@ -4,7 +4,7 @@
  * they are kept in the uploads folder.
  */
 import { loadConfig } from '../config';
-import { describePhotoBackup } from '../maintenance/backup-photos';
+import { describePhotoBackup, megabytes } from '../maintenance/backup-photos';
 import { backupDatabase } from '../maintenance/database-backup';
 
 const config = loadConfig();
@@ -15,7 +15,7 @@ if (config.databaseUrl) {
 try {
   const backup = await backupDatabase({ databaseFile: config.databaseFile, backupsDir: config.backupsDir, photoStorage: config.photoStorage });
   console.log(`Backup written: ${backup.file}`);
-  console.log(`Size: ${backup.bytes} bytes (${(backup.bytes / 1024 / 1024).toFixed(1)} MB); PRAGMA integrity_check: ok; ${backup.durationMs} ms.`);
+  console.log(`Size: ${backup.bytes} bytes (${megabytes(backup.bytes)}); PRAGMA integrity_check: ok; ${backup.durationMs} ms.`);
   for (const line of describePhotoBackup(backup.photos)) console.log(line);
 } catch (error) {
   // A command line answers with a sentence and an exit code, not a stack trace.
